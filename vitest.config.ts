@@ -1,0 +1,36 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+// Two projects: `signal` is pure computation (no database); `integration` gets a throwaway MariaDB
+// from tests/setup/global-db.ts (started once per run, its own data dir and port, stopped at the end).
+export default defineConfig({
+  resolve: {
+    tsconfigPaths: true,
+    // 'server-only' throws unless resolved under Next's react-server condition; in tests it is a no-op marker.
+    alias: { 'server-only': fileURLToPath(new URL('./node_modules/server-only/empty.js', import.meta.url)) },
+  },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'signal',
+          include: ['tests/signal/**/*.test.ts'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'integration',
+          include: ['tests/db/**/*.test.ts', 'tests/api/**/*.test.ts', 'tests/lib/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/global-db.ts'],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+});

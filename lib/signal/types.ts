@@ -48,6 +48,10 @@ export interface RawRecording {
   impact: Uint8Array | null;
   /** 1-based file line number of each sample, for error messages */
   lines: Uint32Array;
+  /** 1-based file column of each sensor (same order as sensorIds), for error messages; absent when built by hand */
+  sensorColumns?: number[];
+  /** 1-based line of the header row, or null for a headerless import profile */
+  headerLine?: number | null;
 }
 
 /** A gap in the time column or in a channel that regularisation filled or refused. */

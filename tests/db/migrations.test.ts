@@ -1,0 +1,90 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { TsMigrationSource } from '@/knexfile';
+import { createScratchDatabase, listTables, type ScratchDatabase } from './scratch-database';
+
+// Tables named in the issue 2 schema, in migration order.
+const APP_TABLES = ['academies', 'users', 'athletes', 'coach_athletes', 'practice_sessions', 'login_attempts'];
+const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
+
+let scratch: ScratchDatabase;
+beforeAll(async () => {
+  scratch = await createScratchDatabase();
+});
+afterAll(async () => {
+  await scratch?.drop();
+});
+
+describe('migrations', () => {
+  it('are timestamped .ts files, one per table, in schema order', async () => {
+    const names = await new TsMigrationSource().getMigrations();
+    expect(names).toHaveLength(APP_TABLES.length);
+    names.forEach((name, index) => {
+      expect(name).toMatch(/^\d{14}_[a-z0-9_]+\.ts$/);
+      expect(name).toContain(APP_TABLES[index]);
+    });
+  });
+
+  it('latest -> rollback all -> latest gives the same tables each way', async () => {
+    const { db } = scratch;
+    await db.migrate.latest();
+    const afterFirst = await listTables(db);
+    expect(afterFirst).toEqual([...APP_TABLES, ...KNEX_TABLES].sort());
+
+    await db.migrate.rollback(undefined, true);
+    expect(await listTables(db)).toEqual(KNEX_TABLES);
+
+    await db.migrate.latest();
+    expect(await listTables(db)).toEqual(afterFirst);
+  });
+
+  it('each down() removes exactly its own table, newest first', async () => {
+    const { db } = scratch;
+    await db.migrate.latest();
+    for (let remaining = APP_TABLES.length; remaining > 0; remaining -= 1) {
+      await db.migrate.down();
+      expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining - 1), ...KNEX_TABLES].sort());
+    }
+    await db.migrate.latest();
+    expect(await listTables(db)).toHaveLength(APP_TABLES.length + KNEX_TABLES.length);
+  });
+
+  it('creates the column types the schema asks for', async () => {
+    const { db } = scratch;
+    await db.migrate.latest();
+    const columns = await db('information_schema.columns')
+      .select<{ t: string; c: string; type: string; nullable: string; def: string | null }[]>({
+        t: 'table_name',
+        c: 'column_name',
+        type: 'column_type',
+        nullable: 'is_nullable',
+        def: 'column_default',
+      })
+      .whereRaw('table_schema = database()');
+    const column = (t: string, c: string) => columns.find((row) => row.t === t && row.c === c);
+    expect(column('users', 'role')?.type).toBe("enum('admin','coach','student','researcher')");
+    expect(column('users', 'email')?.type).toBe('varchar(254)');
+    expect(column('athletes', 'stance_width_mm')).toMatchObject({ type: 'smallint(5) unsigned', nullable: 'NO', def: '400' });
+    expect(column('athletes', 'handedness')).toMatchObject({ type: "enum('right','left')", def: "'right'" });
+    expect(column('athletes', 'user_id')?.nullable).toBe('YES');
+    expect(column('practice_sessions', 'session_date')?.type).toBe('date');
+    expect(column('practice_sessions', 'context')?.type).toBe("enum('lesson','practice','on-course')");
+    expect(column('login_attempts', 'id')?.type).toBe('bigint(20) unsigned');
+    expect(column('login_attempts', 'attempted_at')?.type).toBe('datetime(3)');
+    expect(column('login_attempts', 'ip')?.type).toBe('varchar(45)');
+
+    const indexes = await db('information_schema.statistics')
+      .select<{ t: string; i: string; c: string; seq: number }[]>({
+        t: 'table_name',
+        i: 'index_name',
+        c: 'column_name',
+        seq: 'seq_in_index',
+      })
+      .whereRaw('table_schema = database()')
+      .orderBy(['table_name', 'index_name', 'seq_in_index']);
+    const indexColumns = (t: string, i: string) => indexes.filter((row) => row.t === t && row.i === i).map((row) => row.c);
+    expect(indexColumns('coach_athletes', 'PRIMARY')).toEqual(['coach_user_id', 'athlete_id']);
+    expect(indexColumns('practice_sessions', 'practice_sessions_athlete_date_index')).toEqual(['athlete_id', 'session_date']);
+    expect(indexColumns('login_attempts', 'login_attempts_email_time_index')).toEqual(['email', 'attempted_at']);
+    expect(indexColumns('login_attempts', 'login_attempts_ip_time_index')).toEqual(['ip', 'attempted_at']);
+  });
+});

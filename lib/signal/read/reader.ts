@@ -1,0 +1,208 @@
+// Streaming reader of recording CSV format 1 and of import-profile layouts. Papaparse tokenises each block of
+// complete lines (fastMode: fields are never quoted in these files, so one row is one line and line numbers stay
+// exact); the partial last line of a chunk is carried over to the next push. Values go straight into growing
+// typed arrays: no row objects are kept.
+import Papa from 'papaparse';
+import { SignalInputError } from '../errors';
+import type { ImportProfile, RawRecording, Units } from '../types';
+import { cellNumber, checkedMetadataValue, detectDelimiter, metadataEntry } from './cells';
+import { planFromHeader, planFromProfile, type ColumnPlan } from './columns';
+import { Growable } from './growable';
+
+/** Fewest data rows a recording may have: enough for the default zero-lag filter's edge padding (9 + 1). */
+export const MIN_SAMPLES = 10;
+
+export interface RecordingReader {
+  push(chunk: string): void;
+  end(): RawRecording;
+}
+
+export function createRecordingReader(opts: { profile?: ImportProfile } = {}): RecordingReader {
+  const profile = opts.profile;
+  const metadata: Record<string, string> = {};
+  let pending = '';
+  let started = false;
+  let ended = false;
+  let line = 0; // lines consumed so far (1-based number of the last one)
+  let headerLine: number | null = null;
+  let lastContentLine = 0;
+
+  let plan: ColumnPlan | null = null;
+  let delimiter = '';
+  let decimalComma = false;
+  let time: Growable<Float64Array> | null = null;
+  let lines: Growable<Uint32Array> | null = null;
+  let impact: Growable<Uint8Array> | null = null;
+  let channels: Growable<Float64Array>[] = [];
+  let prevTime = -Infinity;
+
+  const startData = (p: ColumnPlan) => {
+    plan = p;
+    time = new Growable(Float64Array);
+    lines = new Growable(Uint32Array);
+    impact = p.impact >= 0 ? new Growable(Uint8Array) : null;
+    channels = p.sensors.map(() => new Growable(Float64Array));
+  };
+
+  const setDelimiter = (firstLine: string) => {
+    delimiter = profile?.delimiter ?? detectDelimiter(firstLine);
+    decimalComma = delimiter === ';';
+  };
+
+  const tokenise = (text: string): string[][] =>
+    Papa.parse<string[]>(text, { delimiter, newline: '\n', fastMode: true, header: false }).data;
+
+  /** Lines before the data: metadata, blank lines, then the header row (or, for a headerless profile, data). */
+  const preambleLine = (text: string): boolean => {
+    line++;
+    const trimmed = text.trim();
+    if (trimmed === '') return false;
+    lastContentLine = line;
+    if (trimmed.startsWith('#')) {
+      const entry = metadataEntry(trimmed);
+      if (entry) metadata[entry[0]] = checkedMetadataValue(entry[0], entry[1], line);
+      return false;
+    }
+    setDelimiter(text);
+    if (!profile) {
+      headerLine = line;
+      startData(planFromHeader(stripCr(tokenise(text)[0]), line));
+      return false;
+    }
+    if (profile.header) {
+      headerLine = line;
+      startData(planFromProfile(profile, stripCr(tokenise(text)[0]), line));
+      return false;
+    }
+    startData(planFromProfile(profile, null, null));
+    line--; // the caller hands this line to the data path
+    return true;
+  };
+
+  const dataRow = (fields: string[]) => {
+    line++;
+    stripCr(fields);
+    if (fields.length === 1 && fields[0].trim() === '') return;
+    lastContentLine = line;
+    const p = plan!;
+    if (fields[0].trim().startsWith('#')) {
+      throw new SignalInputError('misplaced-metadata', 'a "#" metadata line must come before the header and data', {
+        line,
+        column: 1,
+      });
+    }
+    if (p.fieldCount === null) p.fieldCount = fields.length;
+    if (fields.length !== p.fieldCount || fields.length < p.minFields) {
+      const want = Math.max(p.fieldCount, p.minFields);
+      throw new SignalInputError('field-count', `expected ${want} fields, found ${fields.length}`, {
+        line,
+        column: Math.min(fields.length, want) + 1,
+      });
+    }
+    const t = cellNumber(fields[p.time], decimalComma);
+    if (t === null) throw nonNumeric(fields[p.time], line, p.time);
+    if (Number.isNaN(t)) throw new SignalInputError('missing-time', 'the time cell is empty', { line, column: p.time + 1 });
+    const ts = t * p.timeScale;
+    if (!(ts > prevTime)) {
+      throw new SignalInputError('time-not-increasing', `time ${fields[p.time].trim()} is not after the previous row's`, {
+        line,
+        column: p.time + 1,
+      });
+    }
+    prevTime = ts;
+    for (let c = 0; c < p.sensors.length; c++) {
+      const v = cellNumber(fields[p.sensors[c]], decimalComma);
+      if (v === null) throw nonNumeric(fields[p.sensors[c]], line, p.sensors[c]);
+      channels[c].push(v);
+    }
+    if (impact) {
+      const v = cellNumber(fields[p.impact], decimalComma);
+      if (v === null || (v !== 0 && v !== 1 && !Number.isNaN(v))) {
+        throw new SignalInputError('bad-impact', `impact must be 0, 1 or empty, got "${fields[p.impact].trim()}"`, {
+          line,
+          column: p.impact + 1,
+        });
+      }
+      impact.push(v === 1 ? 1 : 0);
+    }
+    time!.push(ts);
+    lines!.push(line);
+  };
+
+  /** One block of whole lines (the text between two newlines counts as one line, even when empty). */
+  const block = (text: string) => {
+    let rest = text;
+    while (!plan) {
+      const nl = rest.indexOf('\n');
+      const head = nl < 0 ? rest : rest.slice(0, nl);
+      if (preambleLine(head)) break;
+      if (nl < 0) return;
+      rest = rest.slice(nl + 1);
+    }
+    if (rest === '') {
+      line++;
+      return;
+    }
+    for (const row of tokenise(rest)) dataRow(row);
+  };
+
+  return {
+    push(chunk: string) {
+      if (ended) throw new RangeError('push() after end()');
+      if (!started && chunk.length > 0) {
+        started = true;
+        if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
+      }
+      pending += chunk;
+      const nl = pending.lastIndexOf('\n');
+      if (nl < 0) return;
+      const complete = pending.slice(0, nl);
+      pending = pending.slice(nl + 1);
+      block(complete);
+    },
+    end(): RawRecording {
+      if (ended) throw new RangeError('end() called twice');
+      ended = true;
+      if (pending !== '') block(pending);
+      pending = '';
+      if (lastContentLine === 0) throw new SignalInputError('empty-file', 'the file is empty', { line: 1, column: 1 });
+      if (!plan) {
+        throw new SignalInputError('missing-header', 'no header row (time_s, L1, ...) and no data after the metadata', {
+          line: line + 1,
+          column: 1,
+        });
+      }
+      const n = time!.length;
+      if (n < MIN_SAMPLES) {
+        throw new SignalInputError('too-few-samples', `${n} data rows; at least ${MIN_SAMPLES} are needed`, {
+          line: lastContentLine,
+          column: 1,
+        });
+      }
+      const p = plan as ColumnPlan;
+      // The profile describes the file, so its units win; then the metadata; newtons when neither says.
+      const units: Units = profile?.units ?? (metadata.units as Units | undefined) ?? 'N';
+      return {
+        metadata,
+        sensorIds: p.sensorIds.slice(),
+        sensorColumns: p.sensors.map((i) => i + 1),
+        headerLine,
+        units,
+        time: time!.toArray(),
+        channels: channels.map((c) => c.toArray()),
+        impact: impact ? impact.toArray() : null,
+        lines: lines!.toArray(),
+      };
+    },
+  };
+}
+
+function stripCr(fields: string[]): string[] {
+  const last = fields.length - 1;
+  if (last >= 0 && fields[last].endsWith('\r')) fields[last] = fields[last].slice(0, -1);
+  return fields;
+}
+
+function nonNumeric(cell: string, line: number, index: number): SignalInputError {
+  return new SignalInputError('non-numeric', `"${cell.trim()}" is not a number`, { line, column: index + 1 });
+}

@@ -1,0 +1,106 @@
+import { describe, expect, it } from 'vitest';
+import { DETECTION_DEFAULTS, detectionParams, REJECT_REASONS } from '@/lib/signal/events';
+import { DISTRACTORS } from '@/lib/signal/synthetic';
+import { EVENT_NAMES } from '@/lib/signal/types';
+import { analyze, session, withRaw } from './helpers';
+
+// Event times are checked against the generator's truth: the event definitions applied to the noise-free COP
+// (synthetic.ts). The detector sees sensor noise, the CSV round trip, the 20 Hz zero-lag filter and the 0.11 s
+// Savitzky-Golay derivative. Tolerances (ms), from those smoothing steps:
+// - address 80: the COP leaves the quiet threshold slowly at takeaway, so noise of a few mm/s moves the crossing;
+// - top 45: at the turn the lead-ward acceleration is several times the trail-ward one, and the smoothed velocity
+//   crosses zero 10-40 ms before the most trail-ward point of the clean COP (an expected bias of the smoothing);
+// - transition 30, detected impact 20: half-peak points on the steep flanks of the lead-ward velocity;
+// - impact with a marker: exact (the marker sample);
+// - finish 150: the COP settles slowly, so its threshold crossing is the least sharp.
+const TOL = { address: 0.08, top: 0.045, transition: 0.03, impact: 0.02, finish: 0.15 };
+
+const matrix = [100, 200].flatMap((fs) =>
+  (['N', 'kPa'] as const).flatMap((units) =>
+    (['right', 'left'] as const).flatMap((handedness) =>
+      [false, true].map((withMarker) => ({ fs, units, handedness, withMarker })),
+    ),
+  ),
+);
+
+describe('swing events on synthetic sessions with distractors between the swings', () => {
+  matrix.forEach(({ fs, units, handedness, withMarker }, k) => {
+    it(`${fs} Hz, ${units}, ${handedness}-handed, ${withMarker ? 'with' : 'without'} marker`, () => {
+      const { s, raw } = session({
+        seed: 100 + k,
+        sampleRateHz: fs,
+        units,
+        handedness,
+        withMarker,
+        sensorsPerFoot: k % 2 ? 16 : 8,
+        stanceWidthMm: 320 + 20 * k,
+        swings: 5,
+        distractors: DISTRACTORS.slice(k % 5).concat(DISTRACTORS.slice(0, k % 5)), // walk, step, waggle, re-tee, lift
+      });
+      const { result, candidates } = analyze(raw, s);
+      expect(result.swings).toHaveLength(s.truth.swings.length); // exact count: every swing, no distractor
+      expect(candidates.filter((c) => !c.accepted).length).toBeGreaterThan(0); // the distractors were looked at
+      result.swings.forEach((sw, i) => {
+        const truth = s.truth.swings[i].events;
+        expect(sw.impact_source).toBe(withMarker ? 'marker' : 'detected');
+        for (const e of EVENT_NAMES) {
+          if (e === 'impact' && withMarker) expect(sw.events.impact).toBeCloseTo(truth.impact, 9);
+          else expect(Math.abs(sw.events[e] - truth[e]), `${e} of swing ${i + 1}`).toBeLessThanOrEqual(TOL[e] + 1e-9);
+        }
+      });
+    });
+  });
+
+  it.each(DISTRACTORS.map((d) => [d]))('finds no swing in a session of %s alone', (d) => {
+    // with swings = 0 the generator plays the distractor (twice here) and relaxed standing only
+    for (const handedness of ['right', 'left'] as const) {
+      const { s, raw } = session({ seed: 3, handedness, swings: 0, distractors: [d, d], durationS: 40 });
+      expect(s.truth.swings).toHaveLength(0);
+      const { result, candidates } = analyze(raw, s);
+      expect(result.swings).toHaveLength(0);
+      for (const c of candidates) expect(REJECT_REASONS[c.reason!]).toBeTruthy(); // every rejection says why
+      // walking has single support (one foot in the air); waggles never reach the downswing speed
+      if (d === 'walk') expect(candidates.some((c) => c.reason === 'foot-lifted')).toBe(true);
+      if (d === 'waggle') expect(candidates).toHaveLength(0);
+    }
+  });
+});
+
+describe('impact from the marker column', () => {
+  const { s, raw } = session({ seed: 41, swings: 3, withMarker: true, distractors: ['step'] });
+  const markerRows = () => Array.from(raw.impact!.keys()).filter((i) => raw.impact![i] === 1);
+
+  it('a swing without a marker pulse falls back to the detected impact', () => {
+    const impact = Uint8Array.from(raw.impact!);
+    impact[markerRows()[1]] = 0;
+    const { result } = analyze(withRaw(raw, { impact }), s);
+    expect(result.swings.map((w) => w.impact_source)).toEqual(['marker', 'detected', 'marker']);
+    expect(Math.abs(result.swings[1].events.impact - s.truth.swings[1].events.impact)).toBeLessThanOrEqual(0.02);
+  });
+
+  it('a marker before the transition would break the order, so that swing is rejected with the reason', () => {
+    const impact = Uint8Array.from(raw.impact!);
+    const row = markerRows()[0];
+    impact[row] = 0;
+    const topRow = Math.round(s.truth.swings[0].events.top * 100);
+    impact[topRow + 1] = 1; // right after the top, before the lead-ward move reaches half speed
+    const { result, candidates } = analyze(withRaw(raw, { impact }), s);
+    expect(result.swings).toHaveLength(2);
+    expect(candidates.some((c) => c.reason === 'events-out-of-order')).toBe(true);
+  });
+});
+
+describe('detectionParams(stanceWidthMm, overrides)', () => {
+  it('scales the travel and speed thresholds with the stance width only', () => {
+    const p = detectionParams(600);
+    expect(p.downswingPeakSpeedMmS).toBeCloseTo(DETECTION_DEFAULTS.downswingPeakSpeedMmS * 1.5, 9);
+    expect(p.minDownswingTravelMm).toBeCloseTo(DETECTION_DEFAULTS.minDownswingTravelMm * 1.5, 9);
+    expect(p.quietSpeedMmS).toBe(DETECTION_DEFAULTS.quietSpeedMmS);
+    expect(p.quietMinS).toBe(DETECTION_DEFAULTS.quietMinS);
+  });
+  it('keeps explicit overrides unscaled and rejects bad values with RangeError', () => {
+    expect(detectionParams(800, { downswingPeakSpeedMmS: 500 }).downswingPeakSpeedMmS).toBe(500);
+    expect(() => detectionParams(0)).toThrow(RangeError);
+    expect(() => detectionParams(400, { quietMinS: -1 })).toThrow(RangeError);
+  });
+});

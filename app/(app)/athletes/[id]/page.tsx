@@ -1,0 +1,47 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { AthleteProfile } from '@/components/athletes/athlete-profile';
+import { SessionList } from '@/components/athletes/session-list';
+import { CoachingCaution } from '@/components/cautions/coaching-caution';
+import { buttonClass } from '@/components/ui/button';
+import { Card, PageHeader } from '@/components/ui/card';
+import { requirePageRole } from '@/lib/auth/roles';
+import { findAthleteForViewer } from '@/lib/db/athletes';
+import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
+import { idParamSchema } from '@/lib/http';
+
+export const metadata: Metadata = { title: 'Athlete' };
+
+export default async function AthletePage({ params }: { params: Promise<{ id: string }> }) {
+  const viewer = await requirePageRole('coach', 'student');
+  const id = idParamSchema.safeParse((await params).id);
+  if (!id.success) notFound();
+  const athlete = await findAthleteForViewer(viewer, id.data);
+  if (!athlete) notFound();
+  const sessions = await listSessionsForAthlete(athlete.id);
+  return (
+    <>
+      <PageHeader
+        title={athlete.displayName}
+        subtitle="Player profile"
+        action={
+          viewer.role === 'coach' ? (
+            <Link href={`/athletes/${athlete.id}/edit`} className={buttonClass('secondary')}>
+              Edit profile
+            </Link>
+          ) : undefined
+        }
+      />
+      <div className="space-y-6">
+        <CoachingCaution />
+        <Card title="Profile">
+          <AthleteProfile athlete={athlete} />
+        </Card>
+        <Card title={`Sessions (${sessions.length})`}>
+          <SessionList sessions={sessions} />
+        </Card>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,20 @@
+import type { Metadata } from 'next';
+import { UserAdmin } from '@/components/admin/user-admin';
+import { Card, PageHeader } from '@/components/ui/card';
+import { requirePageRole } from '@/lib/auth/roles';
+import { listAcademyUsers } from '@/lib/db/users';
+
+export const metadata: Metadata = { title: 'Accounts' };
+
+export default async function UsersPage() {
+  const admin = await requirePageRole('admin');
+  const users = await listAcademyUsers(admin.academyId);
+  return (
+    <>
+      <PageHeader title="Accounts" subtitle="Create accounts, change roles and deactivate accounts in your academy." />
+      <Card>
+        <UserAdmin initial={users} selfId={admin.id} />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,22 @@
+import { requireRole } from '@/lib/auth/roles';
+import { getAthleteForViewer, updateAthleteForViewer } from '@/lib/db/athletes';
+import { json, parseId, readJson, withErrors } from '@/lib/http';
+import { athletePatchSchema } from '@/lib/validations/athlete';
+
+export const dynamic = 'force-dynamic';
+
+type Context = { params: Promise<{ id: string }> };
+
+// Another coach's athlete answers 404 (not 403): ids outside your roster are not confirmed to exist.
+export const GET = withErrors(async (_request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach', 'student');
+  const id = parseId((await params).id);
+  return json({ athlete: await getAthleteForViewer(viewer, id) });
+});
+
+export const PATCH = withErrors(async (request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach');
+  const id = parseId((await params).id);
+  const patch = athletePatchSchema.parse(await readJson(request));
+  return json({ athlete: await updateAthleteForViewer(viewer, id, patch) });
+});

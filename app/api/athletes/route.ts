@@ -1,0 +1,24 @@
+import { requireRole } from '@/lib/auth/roles';
+import { createAthleteForCoach, listAthletesForViewer } from '@/lib/db/athletes';
+import { json, readJson, withErrors } from '@/lib/http';
+import { athleteInputSchema, athleteListQuerySchema } from '@/lib/validations/athlete';
+
+export const dynamic = 'force-dynamic';
+
+// Coaches see their roster; a student sees a list holding only their own profile.
+export const GET = withErrors(async (request: Request) => {
+  const viewer = await requireRole('coach', 'student');
+  const url = new URL(request.url);
+  const filters = athleteListQuerySchema.parse({
+    q: url.searchParams.get('q') ?? undefined,
+    context: url.searchParams.get('context') || undefined,
+    handedness: url.searchParams.get('handedness') || undefined,
+  });
+  return json({ athletes: await listAthletesForViewer(viewer, filters) });
+});
+
+export const POST = withErrors(async (request: Request) => {
+  const viewer = await requireRole('coach');
+  const input = athleteInputSchema.parse(await readJson(request));
+  return json({ athlete: await createAthleteForCoach(viewer, input) }, 201);
+});

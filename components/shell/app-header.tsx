@@ -1,0 +1,30 @@
+import Link from 'next/link';
+import { Wordmark } from '@/components/brand/logo';
+import { roleLabels } from '@/components/ui/format';
+import type { Viewer } from '@/lib/auth/viewer';
+import { AppNav } from './app-nav';
+import { navItemsByRole } from './nav-items';
+
+export function AppHeader({ viewer }: { viewer: Viewer }) {
+  return (
+    <header className="border-b border-surface-line bg-surface">
+      <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-4 px-6 py-3">
+        <div className="flex items-center gap-6">
+          <Link href="/" aria-label="Stanceline home">
+            <Wordmark />
+          </Link>
+          <AppNav items={navItemsByRole[viewer.role]} />
+        </div>
+        <div className="flex items-center gap-3 text-sm">
+          <span className="text-right leading-tight">
+            <span className="block font-medium text-ink" data-testid="viewer-name">{viewer.name}</span>
+            <span className="block text-xs text-ink-muted">{roleLabels[viewer.role]}</span>
+          </span>
+          <Link href="/sign-out" className="rounded-md border border-surface-line px-3 py-1.5 font-medium text-ink hover:bg-surface-sunken">
+            Sign out
+          </Link>
+        </div>
+      </div>
+    </header>
+  );
+}

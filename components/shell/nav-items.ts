@@ -1,0 +1,18 @@
+import type { Role } from '@/lib/validations/user';
+
+export type NavItem = { href: string; label: string };
+
+// What each role can open; pages check the role again on the server.
+export const navItemsByRole: Record<Role, NavItem[]> = {
+  coach: [
+    { href: '/', label: 'Overview' },
+    { href: '/roster', label: 'Roster' },
+    { href: '/athletes/new', label: 'Add athlete' },
+  ],
+  student: [{ href: '/', label: 'My profile' }],
+  admin: [
+    { href: '/', label: 'Overview' },
+    { href: '/users', label: 'Accounts' },
+  ],
+  researcher: [{ href: '/', label: 'Research' }],
+};

@@ -1,0 +1,91 @@
+import 'server-only';
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { clientIp } from '@/lib/auth/client-ip';
+import { cookieSettings } from '@/lib/auth/cookies';
+import { verifyPassword } from '@/lib/auth/password';
+import { decideThrottle, SIGN_IN_WINDOW_MS } from '@/lib/auth/rate-limit';
+import { rateLimitedCode } from '@/lib/auth/sign-in-errors';
+import { recentEmailFailures, recentIpFailures, recordLoginAttempt } from '@/lib/db/login-attempts';
+import { findUserForSignIn } from '@/lib/db/users';
+import { getEnv } from '@/lib/env';
+import { signInSchema } from '@/lib/validations/user';
+
+const SESSION_MAX_AGE_S = 8 * 60 * 60; // one working day
+
+
+/** Checks the throttle, then the password; records the outcome. Throws a coded Error when throttled. */
+export async function authorizeCredentials(raw: unknown, ip: string, now = new Date()) {
+  const parsed = signInSchema.safeParse(raw);
+  if (!parsed.success) throw new Error('invalid-input');
+  const { email, password } = parsed.data;
+
+  const since = new Date(now.getTime() - SIGN_IN_WINDOW_MS);
+  const [emailFailures, ipFailures] = await Promise.all([recentEmailFailures(email, since), recentIpFailures(ip, since)]);
+  const decision = decideThrottle(emailFailures, ipFailures, now);
+  // Refused attempts are not recorded: recording them would push the window forward and the "try again in N
+  // minutes" promise would never come true.
+  if (!decision.allowed) throw new Error(rateLimitedCode(decision.scope, decision.retryAfterMinutes));
+
+  const user = await findUserForSignIn(email);
+  const passwordMatches = await verifyPassword(password, user?.passwordHash ?? null);
+  const succeeded = Boolean(user && user.active && passwordMatches);
+  await recordLoginAttempt({ email, ip, succeeded, at: now });
+  if (!user || !succeeded) return null;
+  return { id: String(user.id), email: user.email, name: user.name, role: user.role, academyId: user.academyId };
+}
+
+let cached: NextAuthOptions | undefined;
+
+/** Built on first use (not at import) so `next build` does not need the runtime environment. */
+export function getAuthOptions(): NextAuthOptions {
+  cached ??= buildAuthOptions();
+  return cached;
+}
+
+function buildAuthOptions(): NextAuthOptions {
+  const env = getEnv();
+  const cookies = cookieSettings();
+  return {
+    secret: env.NEXTAUTH_SECRET,
+    session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+    jwt: { maxAge: SESSION_MAX_AGE_S },
+    useSecureCookies: cookies.secure,
+    cookies: {
+      sessionToken: { name: cookies.sessionTokenName, options: cookies.base },
+      callbackUrl: { name: cookies.callbackUrlName, options: cookies.base },
+      csrfToken: { name: cookies.csrfTokenName, options: cookies.base },
+    },
+    pages: { signIn: '/sign-in', signOut: '/sign-out', error: '/sign-in' },
+    providers: [
+      CredentialsProvider({
+        name: 'Email and password',
+        credentials: {
+          email: { label: 'Email', type: 'email' },
+          password: { label: 'Password', type: 'password' },
+        },
+        authorize: (credentials, req) => authorizeCredentials(credentials, clientIp(req?.headers)),
+      }),
+    ],
+    callbacks: {
+      jwt({ token, user }) {
+        if (user) {
+          token.uid = Number(user.id);
+          token.role = user.role;
+          token.academyId = user.academyId;
+        }
+        return token;
+      },
+      session({ session, token }) {
+        session.user = {
+          id: token.uid,
+          role: token.role,
+          academyId: token.academyId,
+          name: token.name ?? '',
+          email: token.email ?? '',
+        };
+        return session;
+      },
+    },
+  };
+}

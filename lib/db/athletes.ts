@@ -1,0 +1,145 @@
+import 'server-only';
+import type { Knex } from 'knex';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import type { Viewer } from '@/lib/auth/viewer';
+import { NotFoundError } from '@/lib/http';
+import type { AthleteInput, AthleteListQuery, AthletePatch } from '@/lib/validations/athlete';
+import type { AthleteSummary } from '@/lib/validations/responses';
+
+// Scoping rules (who sees which athlete):
+// - coach: athletes linked to them in coach_athletes, in their academy;
+// - student: only the athlete row tied to their own account (athletes.user_id);
+// - admin and researcher: none through these functions (route handlers forbid them before calling).
+// An athlete outside the viewer's scope is reported as "not found", never as "forbidden", so ids of other
+// coaches' athletes cannot be probed.
+
+type AthleteRow = {
+  id: number;
+  display_name: string;
+  handedness: AthleteSummary['handedness'];
+  stance_width_mm: number;
+  date_of_birth: unknown;
+  home_club: string | null;
+  last_session_date: unknown;
+  last_session_context: string | null;
+};
+
+function toSummary(row: AthleteRow): AthleteSummary {
+  const lastDate = toIsoDate(row.last_session_date);
+  return {
+    id: Number(row.id),
+    displayName: row.display_name,
+    handedness: row.handedness,
+    stanceWidthMm: Number(row.stance_width_mm),
+    dateOfBirth: toIsoDate(row.date_of_birth),
+    homeClub: row.home_club,
+    lastSession:
+      lastDate && row.last_session_context
+        ? { date: lastDate, context: row.last_session_context as NonNullable<AthleteSummary['lastSession']>['context'] }
+        : null,
+  };
+}
+
+function scopedAthletes(viewer: Viewer): Knex.QueryBuilder {
+  const query = db('athletes as a')
+    .select(
+      'a.id',
+      'a.display_name',
+      'a.handedness',
+      'a.stance_width_mm',
+      'a.date_of_birth',
+      'a.home_club',
+      db.raw(
+        '(select p.session_date from practice_sessions p where p.athlete_id = a.id order by p.session_date desc, p.id desc limit 1) as last_session_date',
+      ),
+      db.raw(
+        '(select p.context from practice_sessions p where p.athlete_id = a.id order by p.session_date desc, p.id desc limit 1) as last_session_context',
+      ),
+    )
+    .where('a.academy_id', viewer.academyId);
+  if (viewer.role === 'coach') {
+    query.whereExists(
+      db('coach_athletes as ca').select(db.raw('1')).whereRaw('ca.athlete_id = a.id').andWhere('ca.coach_user_id', viewer.id),
+    );
+  } else if (viewer.role === 'student') {
+    query.where('a.user_id', viewer.id);
+  } else {
+    query.whereRaw('1 = 0');
+  }
+  return query;
+}
+
+/** LIKE pattern that matches `text` literally anywhere. */
+function containsPattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+export async function listAthletesForViewer(viewer: Viewer, filters: AthleteListQuery = {}): Promise<AthleteSummary[]> {
+  const query = scopedAthletes(viewer);
+  if (filters.q) {
+    const pattern = containsPattern(filters.q);
+    query.where((w) => w.where('a.display_name', 'like', pattern).orWhere('a.home_club', 'like', pattern));
+  }
+  if (filters.handedness) query.where('a.handedness', filters.handedness);
+  if (filters.context) {
+    // "has at least one session in this context"
+    query.whereExists(
+      db('practice_sessions as pc').select(db.raw('1')).whereRaw('pc.athlete_id = a.id').andWhere('pc.context', filters.context),
+    );
+  }
+  const rows: AthleteRow[] = await query.orderBy('a.display_name', 'asc').orderBy('a.id', 'asc');
+  return rows.map(toSummary);
+}
+
+export async function findAthleteForViewer(viewer: Viewer, athleteId: number): Promise<AthleteSummary | null> {
+  const row: AthleteRow | undefined = await scopedAthletes(viewer).where('a.id', athleteId).first();
+  return row ? toSummary(row) : null;
+}
+
+export async function getAthleteForViewer(viewer: Viewer, athleteId: number): Promise<AthleteSummary> {
+  const athlete = await findAthleteForViewer(viewer, athleteId);
+  if (!athlete) throw new NotFoundError('No athlete with this id on your roster.');
+  return athlete;
+}
+
+function toColumns(input: AthletePatch): Record<string, unknown> {
+  const columns: Record<string, unknown> = {};
+  if (input.displayName !== undefined) columns.display_name = input.displayName;
+  if (input.handedness !== undefined) columns.handedness = input.handedness;
+  if (input.stanceWidthMm !== undefined) columns.stance_width_mm = input.stanceWidthMm;
+  if (input.dateOfBirth !== undefined) columns.date_of_birth = input.dateOfBirth;
+  if (input.homeClub !== undefined) columns.home_club = input.homeClub === '' ? null : input.homeClub;
+  return columns;
+}
+
+/** A coach creates an athlete in their academy; the athlete joins that coach's roster. */
+export async function createAthleteForCoach(coach: Viewer, input: AthleteInput): Promise<AthleteSummary> {
+  const id = await db.transaction(async (trx) => {
+    const now = new Date();
+    const [athleteId] = await trx('athletes').insert({
+      ...toColumns(input),
+      academy_id: coach.academyId,
+      created_at: now,
+      updated_at: now,
+    });
+    await trx('coach_athletes').insert({ coach_user_id: coach.id, athlete_id: athleteId, created_at: now });
+    return Number(athleteId);
+  });
+  return getAthleteForViewer(coach, id);
+}
+
+export async function updateAthleteForViewer(viewer: Viewer, athleteId: number, patch: AthletePatch): Promise<AthleteSummary> {
+  await getAthleteForViewer(viewer, athleteId);
+  await db('athletes')
+    .where({ id: athleteId })
+    .update({ ...toColumns(patch), updated_at: new Date() });
+  return getAthleteForViewer(viewer, athleteId);
+}
+
+/** Roster size and sessions in the last 30 days, for the coach home page. */
+export async function countSessionsSince(viewer: Viewer, sinceIsoDate: string): Promise<number> {
+  const ids = scopedAthletes(viewer).clearSelect().select('a.id');
+  const row = await db('practice_sessions').whereIn('athlete_id', ids).andWhere('session_date', '>=', sinceIsoDate).count({ n: '*' }).first();
+  return Number(row?.n ?? 0);
+}

@@ -1,0 +1,50 @@
+import 'server-only';
+import { db } from '@/lib/db/client';
+import type { PracticeSession } from '@/lib/validations/responses';
+
+/**
+ * DATE columns arrive either as 'YYYY-MM-DD' strings (dateStrings) or as Date objects at local midnight
+ * (mysql2's default); both become 'YYYY-MM-DD' here.
+ */
+export function toIsoDate(value: unknown): string | null {
+  if (value === null || value === undefined) return null;
+  if (value instanceof Date) {
+    const y = value.getFullYear();
+    const m = String(value.getMonth() + 1).padStart(2, '0');
+    const d = String(value.getDate()).padStart(2, '0');
+    return `${y}-${m}-${d}`;
+  }
+  return String(value).slice(0, 10);
+}
+
+type SessionRow = {
+  id: number;
+  athlete_id: number;
+  session_date: unknown;
+  context: PracticeSession['context'];
+  location: string | null;
+  notes: string | null;
+};
+
+function toPracticeSession(row: SessionRow): PracticeSession {
+  return {
+    id: Number(row.id),
+    athleteId: Number(row.athlete_id),
+    sessionDate: toIsoDate(row.session_date) ?? '',
+    context: row.context,
+    location: row.location,
+    notes: row.notes,
+  };
+}
+
+/** Sessions of one athlete, newest first. Callers check that the viewer may see the athlete. */
+export async function listSessionsForAthlete(athleteId: number): Promise<PracticeSession[]> {
+  const rows: SessionRow[] = await db('practice_sessions')
+    .select('id', 'athlete_id', 'session_date', 'context', 'location', 'notes')
+    .where({ athlete_id: athleteId })
+    .orderBy([
+      { column: 'session_date', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ]);
+  return rows.map(toPracticeSession);
+}

@@ -1,0 +1,130 @@
+import { ZodError, z } from 'zod';
+
+// HTTP-facing errors thrown by lib code and mapped to responses in one place (toErrorResponse).
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'HttpError';
+  }
+}
+
+export class UnauthenticatedError extends HttpError {
+  constructor(message = 'Sign in to continue.') {
+    super(401, 'unauthenticated', message);
+  }
+}
+
+export class ForbiddenError extends HttpError {
+  constructor(message = 'Your role does not allow this.') {
+    super(403, 'forbidden', message);
+  }
+}
+
+export class NotFoundError extends HttpError {
+  constructor(message = 'Not found.') {
+    super(404, 'not_found', message);
+  }
+}
+
+export class ConflictError extends HttpError {
+  constructor(message: string) {
+    super(409, 'conflict', message);
+  }
+}
+
+export type ErrorBody = {
+  error: { code: string; message: string; fieldErrors?: Record<string, string[]> };
+};
+
+/** Field path "a.b" -> messages, for showing server-side validation errors on form fields. */
+export function zodFieldErrors(error: ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length > 0 ? issue.path.join('.') : '_form';
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+export function json<T>(body: T, status = 200): Response {
+  return Response.json(body, { status, headers: { 'Cache-Control': 'no-store' } });
+}
+
+/** The one error mapper: ZodError 422, HttpError its own status, anything else 500 without internals. */
+export function toErrorResponse(error: unknown): Response {
+  if (error instanceof ZodError) {
+    return json<ErrorBody>(
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some fields are not valid.',
+          fieldErrors: zodFieldErrors(error),
+        },
+      },
+      422,
+    );
+  }
+  if (error instanceof HttpError) {
+    return json<ErrorBody>({ error: { code: error.code, message: error.message } }, error.status);
+  }
+  console.error('[stanceline] unhandled error in route handler', error);
+  return json<ErrorBody>({ error: { code: 'internal', message: 'Something went wrong on our side.' } }, 500);
+}
+
+type Handler<C> = (request: Request, context: C) => Promise<Response>;
+
+const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
+/**
+ * A second guard against cross-site requests besides the SameSite=Lax session cookie: a browser sends Origin
+ * with every cross-origin POST/PATCH, so a changing request whose Origin is another host is refused.
+ */
+export function assertSameOrigin(request: Request): void {
+  if (!UNSAFE_METHODS.has(request.method)) return;
+  const origin = request.headers.get('origin');
+  if (!origin) return; // non-browser clients (curl, tests) send none
+  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
+  let originHost: string;
+  try {
+    originHost = new URL(origin).host;
+  } catch {
+    throw new ForbiddenError('Cross-site request refused.');
+  }
+  if (!host || originHost !== host) throw new ForbiddenError('Cross-site request refused.');
+}
+
+/** Wraps a route handler so every thrown error goes through toErrorResponse. */
+export function withErrors<C>(handler: Handler<C>): Handler<C> {
+  return async (request, context) => {
+    try {
+      assertSameOrigin(request);
+      return await handler(request, context);
+    } catch (error) {
+      return toErrorResponse(error);
+    }
+  };
+}
+
+/** Reads a JSON body; a malformed body is a 422 on the pseudo-field "_body". */
+export async function readJson(request: Request): Promise<unknown> {
+  try {
+    return await request.json();
+  } catch {
+    throw new ZodError([
+      { code: 'custom', path: ['_body'], message: 'The request body must be valid JSON.', input: undefined },
+    ]);
+  }
+}
+
+/** Route ids are positive integers; anything else is "not found" rather than a server error. */
+export const idParamSchema = z.coerce.number().int().positive();
+
+export function parseId(raw: string): number {
+  const parsed = idParamSchema.safeParse(raw);
+  if (!parsed.success) throw new NotFoundError();
+  return parsed.data;
+}

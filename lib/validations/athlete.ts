@@ -1,0 +1,62 @@
+import { z } from 'zod';
+
+// One schema for the athlete form (client, via zodResolver) and for POST/PATCH /api/athletes (server).
+// Form inputs turn empty strings into null before validation (see components/athletes/athlete-form.tsx).
+
+export const handednessValues = ['right', 'left'] as const;
+export const sessionContextValues = ['lesson', 'practice', 'on-course'] as const;
+
+// Stance width limits 150-900 mm: the product's plausible range for inside-heel to inside-heel distance
+// (common practice: about shoulder width, roughly 300-500 mm for adults, wider with the driver).
+export const STANCE_WIDTH_MIN_MM = 150;
+export const STANCE_WIDTH_MAX_MM = 900;
+
+const isoDate = z.iso.date({ error: 'Use the date format YYYY-MM-DD.' });
+
+export const dateOfBirthSchema = isoDate.refine((value) => value <= new Date().toISOString().slice(0, 10), {
+  error: 'The date of birth cannot be in the future.',
+}).refine((value) => value >= '1900-01-01', { error: 'The date of birth must be after 1900-01-01.' });
+
+export const athleteInputSchema = z.object({
+  displayName: z
+    .string({ error: 'Enter a name.' })
+    .trim()
+    .min(1, { error: 'Enter a name.' })
+    .max(120, { error: 'Use at most 120 characters.' }),
+  handedness: z.enum(handednessValues, { error: 'Choose right- or left-handed.' }),
+  stanceWidthMm: z
+    .number({ error: 'Enter the stance width in millimetres.' })
+    .int({ error: 'Use whole millimetres.' })
+    .min(STANCE_WIDTH_MIN_MM, { error: `Stance width must be at least ${STANCE_WIDTH_MIN_MM} mm.` })
+    .max(STANCE_WIDTH_MAX_MM, { error: `Stance width must be at most ${STANCE_WIDTH_MAX_MM} mm.` }),
+  dateOfBirth: dateOfBirthSchema.nullable(),
+  homeClub: z.string().trim().max(120, { error: 'Use at most 120 characters.' }).nullable(),
+});
+
+export const athletePatchSchema = athleteInputSchema.partial().refine((value) => Object.keys(value).length > 0, {
+  error: 'Send at least one field to change.',
+});
+
+export type AthleteInput = z.infer<typeof athleteInputSchema>;
+export type AthletePatch = z.infer<typeof athletePatchSchema>;
+
+export const athleteListQuerySchema = z.object({
+  q: z.string().trim().max(120).optional().transform((v) => (v ? v : undefined)),
+  context: z.enum(sessionContextValues).optional(),
+  handedness: z.enum(handednessValues).optional(),
+});
+
+export type AthleteListQuery = Partial<z.infer<typeof athleteListQuerySchema>>;
+
+/** Age in whole years on `today` (both YYYY-MM-DD). */
+export function ageOn(dateOfBirth: string, today: string): number {
+  const [by, bm, bd] = dateOfBirth.split('-').map(Number);
+  const [ty, tm, td] = today.split('-').map(Number);
+  let age = ty - by;
+  if (tm < bm || (tm === bm && td < bd)) age -= 1;
+  return age;
+}
+
+export function isMinor(dateOfBirth: string | null, today = new Date().toISOString().slice(0, 10)): boolean {
+  return dateOfBirth !== null && ageOn(dateOfBirth, today) < 18;
+}

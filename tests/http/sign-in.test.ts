@@ -1,0 +1,106 @@
+import bcrypt from 'bcryptjs';
+import knex, { type Knex } from 'knex';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { knexConfig } from '@/knexfile';
+import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
+import { HttpSession } from './support/http-session';
+
+// A dedicated account for the throttle, so the demo accounts used by the other tests are never locked out.
+const PROBE_EMAIL = 'throttle-probe@stanceline.test';
+const PROBE_PASSWORD = 'throttle-probe-password';
+
+let db: Knex;
+let baseUrl: string;
+
+beforeAll(async () => {
+  const env = e2eEnv();
+  baseUrl = env.E2E_BASE_URL;
+  db = knex(knexConfig(env.DATABASE_URL));
+  await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+  await db('users').where({ email: PROBE_EMAIL }).delete();
+  await db('users').insert({
+    academy_id: 1,
+    email: PROBE_EMAIL,
+    name: 'Throttle Probe',
+    password_hash: await bcrypt.hash(PROBE_PASSWORD, 10),
+    role: 'student',
+    active: true,
+    created_at: new Date(),
+    updated_at: new Date(),
+  });
+});
+
+afterAll(async () => {
+  await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+  await db('users').where({ email: PROBE_EMAIL }).delete();
+  await db.destroy();
+});
+
+describe('sign-in over HTTP', () => {
+  it('the right password gives a session cookie and GET /api/me answers with the role', async () => {
+    const session = new HttpSession(baseUrl);
+    const result = await session.signIn(DEMO.coach, DEMO_PASSWORD);
+    expect(result).toEqual({ ok: true, status: 200, error: null });
+    expect(session.cookieNames()).toContain('next-auth.session-token');
+    const me = await session.json('/api/me');
+    expect(me.body).toMatchObject({ user: { email: DEMO.coach, role: 'coach', name: 'Maren Solberg' } });
+  });
+
+  it('the session cookie is httpOnly and SameSite=Lax (and not Secure over plain http)', async () => {
+    const session = new HttpSession(baseUrl);
+    expect((await session.signIn(DEMO.student, DEMO_PASSWORD)).ok).toBe(true);
+    const line = session.setCookieLines.get('next-auth.session-token');
+    expect(line).toBeDefined();
+    expect(line).toMatch(/;\s*HttpOnly/i);
+    expect(line).toMatch(/;\s*SameSite=Lax/i);
+    expect(line).not.toMatch(/;\s*Secure/i);
+  });
+
+  it('a wrong password is refused with the credentials error and no session', async () => {
+    const session = new HttpSession(baseUrl);
+    const result = await session.signIn(PROBE_EMAIL, 'not-the-password');
+    expect(result.ok).toBe(false);
+    expect(result.status).toBe(401);
+    expect(result.error).toBe('CredentialsSignin');
+    expect((await session.json('/api/me')).status).toBe(401);
+  });
+
+  it('the sign-in page words the credentials error clearly', async () => {
+    const html = await (await fetch(`${baseUrl}/sign-in?error=CredentialsSignin`)).text();
+    expect(html).toContain('That email and password do not match an active account.');
+  });
+
+  it('after 10 failures in 15 minutes the 11th attempt is refused even with the right password', async () => {
+    await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+    const session = new HttpSession(baseUrl);
+    for (let i = 1; i <= 10; i += 1) {
+      const result = await session.signIn(PROBE_EMAIL, `wrong-${i}`);
+      expect(result.error, `attempt ${i}`).toBe('CredentialsSignin');
+    }
+    const eleventh = await session.signIn(PROBE_EMAIL, PROBE_PASSWORD);
+    expect(eleventh.ok).toBe(false);
+    // 10 failures just now: the oldest leaves the 15-minute window in at most 15 minutes.
+    expect(eleventh.error).toMatch(/^rate-limited-email-(1[0-5]|[1-9])$/);
+    expect((await session.json('/api/me')).status).toBe(401);
+
+    const html = await (await fetch(`${baseUrl}/sign-in?error=${eleventh.error}`)).text();
+    expect(html).toMatch(/Too many attempts for this email; try again in \d+ minutes?\./);
+
+    // Other accounts are not affected by this email's lock.
+    const other = await new HttpSession(baseUrl).signIn(DEMO.researcher, DEMO_PASSWORD);
+    expect(other.ok).toBe(true);
+
+    // Once the failures are outside the window (moved back 16 minutes), the right password works again.
+    await db('login_attempts')
+      .where({ email: PROBE_EMAIL })
+      .update({ attempted_at: db.raw('attempted_at - interval 16 minute') });
+    expect((await new HttpSession(baseUrl).signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+  });
+
+  it('a deactivated account cannot sign in', async () => {
+    await db('users').where({ email: PROBE_EMAIL }).update({ active: false });
+    const result = await new HttpSession(baseUrl).signIn(PROBE_EMAIL, PROBE_PASSWORD);
+    expect(result.error).toBe('CredentialsSignin');
+    await db('users').where({ email: PROBE_EMAIL }).update({ active: true });
+  });
+});

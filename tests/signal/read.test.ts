@@ -7,6 +7,7 @@ import {
   parseProfile,
   parseRecording,
 } from '@/lib/signal/read';
+import { cellNumber } from '@/lib/signal/read/cells';
 import type { ImportProfile, RawRecording } from '@/lib/signal/types';
 
 // Invented recording in format 1 (spec section 1): 12 rows at 100 Hz, 2 sensors per foot.
@@ -225,5 +226,90 @@ describe('parseLayout / parseProfile', () => {
     expect(errorOf(() => parseProfile(p)).message).toContain('time.column');
     expect(errorOf(() => parseProfile({ ...p, time: { column: 1, unit: 'min' } })).message).toContain('time.unit');
     expect(errorOf(() => parseProfile({ ...p, time: { column: 1, unit: 's' }, sensors: { L1: 1 } })).message).toContain('already used');
+  });
+});
+
+describe('cellNumber: the fast path agrees with the strict rules', () => {
+  it('reads plain decimals exactly as Number() does, bit for bit', () => {
+    // reference: ECMA-262 StringToNumber (Number(string)), the conversion the strict path uses
+    const cells = ['0', '7', '64.31', '-0.25', '+12.5', '.5', '5.', '-0', '-0.000', '0.1', '0.3', '1.005', '123456789012345',
+      '12345678901234.5', '0.000000000000001', '999999999999999', '1234567890123456', '00000000000000000001', '1e5', '2.5E-3', ' 41.1 ', '\t3'];
+    for (const c of cells) expect(Object.is(cellNumber(c, false), Number(c)), c).toBe(true);
+    // many random decimals of 1-17 digits with the point anywhere (invented inputs; Number() is the reference)
+    let seed = 7;
+    const next = () => (seed = (seed * 48271) % 2147483647);
+    for (let k = 0; k < 20000; k++) {
+      const digits = String(next()) + String(next());
+      const d = digits.slice(0, 1 + (next() % 17));
+      const at = next() % (d.length + 1);
+      const cell = (next() % 2 ? '-' : '') + d.slice(0, at) + '.' + d.slice(at);
+      expect(Object.is(cellNumber(cell, false), Number(cell)), cell).toBe(true);
+    }
+  });
+  it('keeps rejecting what format 1 does not accept', () => {
+    for (const c of ['0x1A', 'Infinity', '-Infinity', 'NaN', '1e400', '.', '-', '+', '1.2.3', '1,5', '1 5', '"1"', '1_000', '١']) {
+      expect(cellNumber(c, false), c).toBeNull();
+    }
+    expect(Number.isNaN(cellNumber('', false))).toBe(true);
+    expect(Number.isNaN(cellNumber('  ', false))).toBe(true);
+  });
+  it('reads a decimal comma only in semicolon files, and only with digits on both sides', () => {
+    expect(cellNumber('41,10', true)).toBe(41.1);
+    expect(cellNumber('-0,5', true)).toBe(-0.5);
+    expect(cellNumber(' 2,5 ', true)).toBe(2.5);
+    for (const c of ['1,', ',5', '1,2,3', '1,2.3', '1,5e3']) expect(cellNumber(c, true), c).toBeNull();
+    expect(cellNumber('1,5', false)).toBeNull();
+  });
+});
+
+describe('parseRecording: long files (the tokeniser works through pieces of the text)', () => {
+  // Invented file of 6000 rows (~150 kB, many tokeniser pieces), with a blank line every 997 rows and CRLF endings.
+  const n = 6000;
+  const body: string[] = [];
+  const expectedLines: number[] = [];
+  for (let i = 0; i < n; i++) {
+    if (i > 0 && i % 997 === 0) body.push('');
+    body.push([((i + 1) / 100).toFixed(2), (i % 50) + 0.25, 20, 30 + (i % 7), 40].join(','));
+    expectedLines.push(body.length + 1); // the header is line 1
+  }
+  const text = [header, ...body].join('\r\n') + '\r\n';
+
+  it('keeps every row, value and line number', () => {
+    const r = parseRecording(text);
+    expect(r.time.length).toBe(n);
+    expect(Array.from(r.lines)).toEqual(expectedLines);
+    expect(r.channels[0][4321]).toBe((4321 % 50) + 0.25);
+    expect(r.time[n - 1]).toBe(Number((n / 100).toFixed(2)));
+    // right-sized arrays: the buffers hold exactly the samples, nothing more
+    expect(r.time.buffer.byteLength).toBe(n * 8);
+    expect(r.lines.buffer.byteLength).toBe(n * 4);
+  });
+
+  it('gives the same result for any chunking, including chunks that split lines and CRLF pairs', () => {
+    const whole = parseRecording(text);
+    for (const size of [1, 4093, 16_384, 16_385, 65_536, 100_000]) {
+      const reader = createRecordingReader();
+      for (let i = 0; i < text.length; i += size) reader.push(text.slice(i, i + size));
+      expect(reader.end(), `chunk size ${size}`).toEqual(whole);
+    }
+  });
+
+  it('points at the right line and column deep into the file', () => {
+    const lines = text.split('\r\n');
+    const at = 5123; // 0-based index in `lines`, so file line 5124
+    lines[at] = lines[at].replace(/,20,/, ',2O,');
+    const e = expectErr(lines.join('\r\n'), 'non-numeric', at + 1, 3);
+    expect(e.message).toBe(`line ${at + 1}, column 3: "2O" is not a number`);
+    const reader = createRecordingReader();
+    const broken = lines.join('\n');
+    for (let i = 0; i < broken.length; i += 777) {
+      try {
+        reader.push(broken.slice(i, i + 777));
+      } catch (err) {
+        expect((err as SignalInputError).line).toBe(at + 1);
+        return;
+      }
+    }
+    throw new Error('expected the streamed read to fail');
   });
 });

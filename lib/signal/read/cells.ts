@@ -4,11 +4,54 @@ import { SignalInputError } from '../errors';
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+$/;
 
+// 10^0 .. 10^15, all exact in a double.
+const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
+
 /**
  * A cell as a number: NaN for an empty cell (a missing sample), null when it is not a number.
  * With the semicolon delimiter a decimal comma ("41,10") is accepted, as spreadsheets in many locales write it.
  */
 export function cellNumber(raw: string, decimalComma: boolean): number | null {
+  const fast = plainDecimal(raw, decimalComma);
+  return fast === fast ? fast : strictCellNumber(raw, decimalComma);
+}
+
+/**
+ * Fast path for the common cell: optional sign, at most 15 digits, at most one decimal point and nothing else
+ * (no spaces, no exponent). Then the value is m / 10^k with m < 10^15 and 10^k both exact doubles, and one IEEE
+ * division rounds the exact quotient correctly, so it equals Number(cell) bit for bit (the classic exact case
+ * of decimal-to-binary conversion). Returns NaN for every other cell, which then takes the strict path.
+ */
+function plainDecimal(s: string, decimalComma: boolean): number {
+  const n = s.length;
+  let i = 0;
+  let c = s.charCodeAt(0);
+  const neg = c === 45; // '-'
+  if (neg || c === 43) i = 1; // '+'
+  let m = 0;
+  let digits = 0;
+  let point = -1; // digits before the decimal point, once one is seen
+  let comma = false;
+  for (; i < n; i++) {
+    c = s.charCodeAt(i);
+    const d = c - 48;
+    if (d >= 0 && d <= 9) {
+      m = m * 10 + d;
+      digits++;
+    } else if (point < 0 && (c === 46 || (c === 44 && decimalComma))) {
+      point = digits;
+      comma = c === 44;
+    } else return NaN;
+  }
+  if (digits === 0 || digits > 15) return NaN;
+  // a decimal comma needs digits on both sides (DECIMAL_COMMA); a point needs a digit on either side (NUMBER)
+  if (comma && (point === 0 || point === digits)) return NaN;
+  const v = point < 0 ? m : m / POW10[digits - point];
+  return neg ? -v : v;
+}
+
+/** The rules themselves: trim, then the format-1 number grammar, then (semicolon files) a decimal comma. */
+function strictCellNumber(raw: string, decimalComma: boolean): number | null {
   const cell = raw.trim();
   if (cell === '') return NaN;
   if (NUMBER.test(cell)) {

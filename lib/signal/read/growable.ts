@@ -1,25 +1,54 @@
-// Append-only typed arrays that double their capacity, so a long recording costs a small multiple of its final size.
+// Append-only typed arrays kept as a list of blocks: the first blocks double (1 Ki .. 64 Ki values), then every block
+// holds 64 Ki values. Nothing is ever copied while growing, and taking the result copies each value once into a
+// right-sized array; so a long recording peaks at about twice its final size instead of up to three times.
 type TypedCtor<T> = { new (length: number): T };
 
-export class Growable<T extends Float64Array | Uint32Array | Uint8Array> {
-  private data: T;
-  length = 0;
+const FIRST = 1024;
+const LARGEST = 65_536;
 
-  constructor(private readonly ctor: TypedCtor<T>, capacity = 1024) {
-    this.data = new ctor(capacity);
+export class Growable<T extends Float64Array | Uint32Array | Uint8Array> {
+  private full: T[] = [];
+  private block: T;
+  private used = 0;
+  /** values in the full blocks */
+  private before = 0;
+
+  constructor(private readonly ctor: TypedCtor<T>) {
+    this.block = new ctor(FIRST);
+  }
+
+  get length(): number {
+    return this.before + this.used;
   }
 
   push(value: number): void {
-    if (this.length === this.data.length) {
-      const next = new this.ctor(this.data.length * 2);
-      next.set(this.data);
-      this.data = next;
-    }
-    this.data[this.length++] = value;
+    if (this.used === this.block.length) this.next();
+    this.block[this.used++] = value;
   }
 
-  /** A right-sized copy of the values pushed so far. */
-  toArray(): T {
-    return this.data.slice(0, this.length) as T;
+  private next(): void {
+    this.full.push(this.block);
+    this.before += this.used;
+    this.block = new this.ctor(Math.min(Math.max(this.block.length * 2, FIRST), LARGEST));
+    this.used = 0;
+  }
+
+  /**
+   * A right-sized array of the values pushed so far. The blocks are released (the Growable is empty afterwards),
+   * so a reader that stays referenced does not keep a second copy of the recording alive.
+   */
+  take(): T {
+    const out = new this.ctor(this.length);
+    let at = 0;
+    for (const b of this.full) {
+      out.set(b, at);
+      at += b.length;
+    }
+    out.set(this.block.subarray(0, this.used), at);
+    this.full = [];
+    this.block = new this.ctor(0);
+    this.before = 0;
+    this.used = 0;
+    return out;
   }
 }

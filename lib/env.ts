@@ -16,10 +16,33 @@ export const serverEnvSchema = z
     NEXTAUTH_SECRET: z.string().min(32, { error: 'must be at least 32 characters' }).optional(),
     NEXTAUTH_URL: z.url({ error: 'must be an absolute URL such as http://127.0.0.1:3000' }).optional(),
     PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+    // Raw recordings: a local folder by default; S3-compatible object storage when STORAGE_S3_BUCKET is set.
+    STORAGE_DIR: z.string().min(1).default('.data/uploads'),
+    STORAGE_S3_BUCKET: z.string().min(3, { error: 'must be an S3 bucket name (3+ characters)' }).optional(),
+    STORAGE_S3_ENDPOINT: z.url({ error: 'must be the URL of the S3 endpoint, e.g. http://127.0.0.1:4568' }).optional(),
+    STORAGE_S3_REGION: z.string().min(1).default('us-east-1'),
+    STORAGE_S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    STORAGE_S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    // Upload limits (POST /api/recordings): bytes per file (default 200 MB) and files per request.
+    MAX_UPLOAD_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
+    MAX_UPLOAD_FILES: z.coerce.number().int().min(1).max(1000).default(20),
+    // The processing worker inside each app process; WORKER_ENABLED=false leaves the queue to other instances.
+    WORKER_ENABLED: z.enum(['true', 'false'], { error: 'must be true or false' }).default('true'),
+    WORKER_POLL_MS: z.coerce.number().int().min(50).default(1000),
+    // A running job whose heartbeat is older than this belonged to a worker that died; it is claimed again.
+    JOB_LOCK_TIMEOUT_S: z.coerce.number().int().min(5).default(60),
+    JOB_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(3),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.NEXTAUTH_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
       ctx.addIssue({ code: 'custom', path: ['NEXTAUTH_SECRET'], message: 'is required in production (npm start generates one)' });
+    }
+    if (env.STORAGE_S3_BUCKET && !!env.STORAGE_S3_ACCESS_KEY_ID !== !!env.STORAGE_S3_SECRET_ACCESS_KEY) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['STORAGE_S3_SECRET_ACCESS_KEY'],
+        message: 'STORAGE_S3_ACCESS_KEY_ID and STORAGE_S3_SECRET_ACCESS_KEY are set together (or neither, for the default credential chain)',
+      });
     }
   });
 

@@ -2,7 +2,7 @@
 // a build when sources changed, then `next start` on 127.0.0.1:PORT.
 // Ctrl-C stops Next and the local fakes; MariaDB keeps running for a fast restart (`npm run db:stop` stops it).
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo/scenario';
-import { migrateLatest, seedDemoIfEmptyAt } from './lib/database';
+import { migrateLatest, seedDemoIfEmptyAt, seedDemoRecordingsAt } from './lib/database';
 import { startLocalFakes } from './lib/local-fakes';
 import { mariadbConfigFromEnv, startMariadb } from './lib/mariadb';
 import { ensureNextauthSecret } from './lib/nextauth-secret';
@@ -30,10 +30,13 @@ async function main(): Promise<number> {
 
   const applied = await migrateLatest(databaseUrl);
   console.log(applied.length ? `Applied migrations: ${applied.join(', ')}` : 'Database schema is up to date.');
-  if (await seedDemoIfEmptyAt(databaseUrl)) console.log('Empty database: seeded the demo academy.');
-
   const fakes = await startLocalFakes();
   if (fakes.names.length) console.log(`Local fakes: ${fakes.names.join(', ')}`);
+
+  if (await seedDemoIfEmptyAt(databaseUrl)) {
+    const ready = await seedDemoRecordingsAt(databaseUrl, { ...process.env, ...fakes.env });
+    console.log(`Empty database: seeded the demo academy and processed ${ready} demo recordings.`);
+  }
 
   const url = `http://127.0.0.1:${port}`;
   const env = nextEnv({

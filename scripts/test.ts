@@ -100,8 +100,9 @@ async function main(): Promise<void> {
   banner('next build');
   const port = await findFreePort();
   const url = `http://127.0.0.1:${port}`;
-  fakes = await startLocalFakes();
-  const appEnv = { ...baseEnv, ...fakes.env, NEXTAUTH_URL: url, PORT: String(port) };
+  fakes = await startLocalFakes(join(reportDir, 'fakes'));
+  // Raw files of a local-folder run (LOCAL_S3_FAKE=off) go to the run's own dir too.
+  const appEnv = { STORAGE_DIR: join(reportDir, 'uploads'), ...baseEnv, ...fakes.env, NEXTAUTH_URL: url, PORT: String(port) };
   checkInterrupted();
   const buildCode = await runNextBuild(root, appEnv, track);
   checkInterrupted();

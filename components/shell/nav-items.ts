@@ -8,6 +8,7 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
     { href: '/', label: 'Overview' },
     { href: '/roster', label: 'Roster' },
     { href: '/athletes/new', label: 'Add athlete' },
+    { href: '/upload', label: 'Upload' },
   ],
   student: [{ href: '/', label: 'My profile' }],
   admin: [

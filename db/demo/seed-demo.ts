@@ -6,6 +6,14 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'recording_series',
+  'swing_event_values',
+  'swing_phase_metrics',
+  'swing_events',
+  'swings',
+  'processing_jobs',
+  'recordings',
+  'import_profiles',
   'login_attempts',
   'practice_sessions',
   'coach_athletes',

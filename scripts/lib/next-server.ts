@@ -14,6 +14,7 @@ const BUILD_INPUTS = [
   'types',
   'public',
   'next.config.ts',
+  'instrumentation.ts',
   'tailwind.config.ts',
   'postcss.config.mjs',
   'package.json',

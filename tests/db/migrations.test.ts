@@ -2,8 +2,23 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TsMigrationSource } from '@/knexfile';
 import { createScratchDatabase, listTables, type ScratchDatabase } from './scratch-database';
 
-// Tables named in the issue 2 schema, in migration order.
-const APP_TABLES = ['academies', 'users', 'athletes', 'coach_athletes', 'practice_sessions', 'login_attempts'];
+// Tables of the issue 2 schema, then those of issue 4 (recordings and their results), in migration order.
+const APP_TABLES = [
+  'academies',
+  'users',
+  'athletes',
+  'coach_athletes',
+  'practice_sessions',
+  'login_attempts',
+  'import_profiles',
+  'recordings',
+  'processing_jobs',
+  'swings',
+  'swing_events',
+  'swing_phase_metrics',
+  'swing_event_values',
+  'recording_series',
+];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 
 let scratch: ScratchDatabase;

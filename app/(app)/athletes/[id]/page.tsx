@@ -27,9 +27,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         subtitle="Player profile"
         action={
           viewer.role === 'coach' ? (
-            <Link href={`/athletes/${athlete.id}/edit`} className={buttonClass('secondary')}>
-              Edit profile
-            </Link>
+            <div className="flex gap-2">
+              <Link href={`/upload?athlete=${athlete.id}`} className={buttonClass('primary')}>
+                Upload recordings
+              </Link>
+              <Link href={`/athletes/${athlete.id}/edit`} className={buttonClass('secondary')}>
+                Edit profile
+              </Link>
+            </div>
           ) : undefined
         }
       />

@@ -1,0 +1,58 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
+import { CoachingCaution } from '@/components/cautions/coaching-caution';
+import { SessionRecordingsPanel } from '@/components/recordings/session-recordings-panel';
+import { Badge } from '@/components/ui/badge';
+import { buttonClass } from '@/components/ui/button';
+import { PageHeader } from '@/components/ui/card';
+import { contextLabels, formatDate } from '@/components/ui/format';
+import { requirePageRole } from '@/lib/auth/roles';
+import { findAthleteForViewer } from '@/lib/db/athletes';
+import { idParamSchema } from '@/lib/http';
+import { getSessionRecordingsView } from '@/lib/recordings/views';
+import { isMinor } from '@/lib/validations/athlete';
+
+export const metadata: Metadata = { title: 'Session' };
+
+// A practice session: its recordings with their state and the swings found. The athlete's coach (who can upload
+// more) and the student whose session it is (read-only); anyone else gets "not found".
+export default async function SessionPage({ params }: { params: Promise<{ id: string }> }) {
+  const viewer = await requirePageRole('coach', 'student');
+  const id = idParamSchema.safeParse((await params).id);
+  if (!id.success) notFound();
+  const view = await getSessionRecordingsView(id.data);
+  if (!view) notFound();
+  const athlete = await findAthleteForViewer(viewer, view.session.athleteId);
+  if (!athlete) notFound();
+  const context = view.session.context as keyof typeof contextLabels;
+  return (
+    <>
+      <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-muted">
+        <Link href={`/athletes/${athlete.id}`} className="hover:text-accent hover:underline">
+          {athlete.displayName}
+        </Link>{' '}
+        / Session
+      </nav>
+      <PageHeader
+        title={`${formatDate(view.session.sessionDate)} · ${contextLabels[context] ?? view.session.context}`}
+        subtitle={view.session.location ?? undefined}
+        action={
+          viewer.role === 'coach' ? (
+            <Link href={`/upload?athlete=${athlete.id}&session=${view.session.id}`} className={buttonClass('primary')}>
+              Upload recordings
+            </Link>
+          ) : (
+            <Badge>Read-only</Badge>
+          )
+        }
+      />
+      <div className="space-y-6">
+        <CoachingCaution />
+        {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
+        <SessionRecordingsPanel sessionId={view.session.id} initial={view} />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,27 @@
+import { formatBytes } from './format';
+import { NoSwingsNote } from './no-swings-note';
+import { RecordingErrorNote } from './recording-error-note';
+import { StatusBadge } from './status-badge';
+import type { SessionRecording } from './api-schemas';
+
+/** The recordings of a session with their processing state. */
+export function RecordingList({ recordings }: { recordings: SessionRecording[] }) {
+  if (recordings.length === 0) return <p className="text-sm text-ink-muted">No recordings in this session yet.</p>;
+  return (
+    <ul className="divide-y divide-surface-line" data-testid="recording-list">
+      {recordings.map((r) => (
+        <li key={r.id} className="space-y-2 py-3" data-testid="recording-row" data-filename={r.filename} data-status={r.status}>
+          <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-sm">
+            <span className="font-medium text-ink">{r.filename}</span>
+            <StatusBadge status={r.status} />
+            <span className="text-xs tabular-nums text-ink-muted">{formatBytes(r.byteSize)}</span>
+            {r.status === 'ready' && <span className="text-xs text-ink-muted">{r.swingCount === 1 ? '1 swing' : `${r.swingCount} swings`}</span>}
+            {r.algorithmVersion && <span className="text-xs text-ink-faint">{r.algorithmVersion}</span>}
+          </div>
+          {r.status === 'failed' && r.error && <RecordingErrorNote error={r.error} />}
+          {r.status === 'ready' && r.swingCount === 0 && <NoSwingsNote />}
+        </li>
+      ))}
+    </ul>
+  );
+}

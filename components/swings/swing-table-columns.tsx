@@ -1,0 +1,63 @@
+import Link from 'next/link';
+import type { ColumnDef, FilterFn } from '@tanstack/react-table';
+import { Badge } from '@/components/ui/badge';
+import { formatNumber, formatTempo } from '@/components/recordings/format';
+
+export type SwingRow = {
+  id: number;
+  index: number;
+  recordingId: number;
+  filename: string;
+  /** club and label are set by the coach in the viewer (next issue); until then always null */
+  club: string | null;
+  label: string | null;
+  impactS: number | null;
+  leadPctAtImpact: number | null;
+  tempoRatio: number | null;
+  impactSource: 'marker' | 'detected';
+  stale: boolean;
+};
+
+export type NumberRange = [number | undefined, number | undefined];
+
+/** [min, max] with either end open; a swing without the value never matches a bounded filter. */
+export const numberRange: FilterFn<SwingRow> = (row, columnId, value: NumberRange) => {
+  const [min, max] = value;
+  if (min === undefined && max === undefined) return true;
+  const v = row.getValue<number | undefined>(columnId);
+  if (v === undefined) return false;
+  return (min === undefined || v >= min) && (max === undefined || v <= max);
+};
+
+/** Case-insensitive "contains"; an empty cell never matches a non-empty filter. */
+export const containsText: FilterFn<SwingRow> = (row, columnId, value: string) => {
+  const v = row.getValue<string | undefined>(columnId);
+  return v !== undefined && v.toLowerCase().includes(value.toLowerCase());
+};
+
+export const sameRecording: FilterFn<SwingRow> = (row, columnId, value: number) => row.getValue<number>(columnId) === value;
+
+const dash = <span className="text-ink-faint">—</span>;
+
+export const swingColumns: ColumnDef<SwingRow>[] = [
+  {
+    id: 'swing',
+    header: 'Swing',
+    accessorFn: (r) => r.index,
+    cell: ({ row }) => (
+      <span className="inline-flex items-center gap-2">
+        <Link href={`/swings/${row.original.id}`} className="font-medium text-accent hover:underline">
+          Swing {row.original.index}
+        </Link>
+        {row.original.stale && <Badge tone="notice">Kept: manual corrections</Badge>}
+      </span>
+    ),
+  },
+  { id: 'recording', header: 'Recording', accessorFn: (r) => r.recordingId, filterFn: sameRecording, cell: ({ row }) => row.original.filename, sortingFn: (a, b) => a.original.filename.localeCompare(b.original.filename) || a.original.index - b.original.index },
+  { id: 'club', header: 'Club', accessorFn: (r) => r.club ?? undefined, filterFn: containsText, sortUndefined: 'last', cell: ({ getValue }) => getValue<string | undefined>() ?? dash },
+  { id: 'label', header: 'Label', accessorFn: (r) => r.label ?? undefined, filterFn: containsText, sortUndefined: 'last', cell: ({ getValue }) => getValue<string | undefined>() ?? dash },
+  { id: 'impact', header: 'Impact (s)', accessorFn: (r) => r.impactS ?? undefined, sortUndefined: 'last', enableColumnFilter: false, cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 3) },
+  { id: 'leadPct', header: 'Lead % at impact', accessorFn: (r) => r.leadPctAtImpact ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 1, ' %') },
+  { id: 'tempo', header: 'Tempo', accessorFn: (r) => r.tempoRatio ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatTempo(getValue<number | undefined>()) },
+  { id: 'impactSource', header: 'Impact from', accessorFn: (r) => r.impactSource, enableColumnFilter: false, cell: ({ getValue }) => (getValue<string>() === 'marker' ? 'Marker' : 'Pressure') },
+];

@@ -1,0 +1,8 @@
+// Next calls register() once when a server process starts. The processing worker runs only in the Node.js
+// runtime (it needs the database driver, the file system and the S3 client), never in the edge runtime.
+export async function register(): Promise<void> {
+  if (process.env.NEXT_RUNTIME === 'nodejs' && process.env.NEXT_PHASE !== 'phase-production-build') {
+    const { startAppWorker } = await import('./lib/jobs/start');
+    startAppWorker();
+  }
+}

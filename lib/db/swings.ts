@@ -1,0 +1,108 @@
+import 'server-only';
+import type { Viewer } from '@/lib/auth/viewer';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import { ForbiddenError, NotFoundError } from '@/lib/http';
+import { athleteAccess } from '@/lib/recordings/access';
+import { eventNames, phaseNames, type SwingDetail } from '@/components/swings/swing-schemas';
+
+// One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id.
+// Numbers are rounded the way `npm run analyze` prints them (lib/recordings/views.ts): times to 3 decimals,
+// percentages and millimetres to 1, mm/s to whole numbers, the tempo ratio to 2, so the page and the CLI can be compared 1:1.
+
+const round = (digits: number) => (v: unknown) => {
+  if (v === null || v === undefined) return null;
+  const p = 10 ** digits;
+  return Math.round(Number(v) * p) / p || 0; // `|| 0` drops -0
+};
+const r3 = round(3);
+const r2 = round(2);
+const r1 = round(1);
+const r0 = round(0);
+
+function jsonColumn(value: unknown): Record<string, unknown> {
+  if (value === null || value === undefined) return {};
+  return (typeof value === 'string' ? JSON.parse(value) : value) as Record<string, unknown>;
+}
+
+/** 404 for an unknown id, 403 for a swing of an athlete the viewer does not see (coach: roster; student: own). */
+export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingDetail> {
+  const row = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .join('athletes as a', 'a.id', 'r.athlete_id')
+    .where('s.id', swingId)
+    .first(
+      's.id',
+      's.swing_index',
+      's.start_s',
+      's.end_s',
+      's.impact_source',
+      's.tempo_ratio',
+      's.hidden',
+      's.stale',
+      'r.id as recording_id',
+      'r.filename',
+      'r.algorithm_version',
+      'r.parameters',
+      'r.athlete_id',
+      'p.id as session_id',
+      'p.session_date',
+      'p.context',
+      'a.display_name',
+      'a.date_of_birth',
+    );
+  if (!row) throw new NotFoundError('No swing with this id.');
+  if (!(await athleteAccess(viewer, Number(row.athlete_id)))) throw new ForbiddenError('This swing belongs to an athlete you do not see.');
+
+  const [events, values, phases] = await Promise.all([
+    db('swing_events').where({ swing_id: swingId }).select('name', 'time_s', 'source', 'auto_time_s', 'misfit'),
+    db('swing_event_values').where({ swing_id: swingId }).select('event', 'lead_pct', 'lead_heel_pct', 'trail_heel_pct', 'cop_x_mm', 'cop_y_mm'),
+    db('swing_phase_metrics').where({ swing_id: swingId }).select('phase', 'duration_s', 'cop_path_mm', 'peak_cop_speed_mm_s', 'mean_lead_pct'),
+  ]);
+
+  return {
+    id: Number(row.id),
+    index: Number(row.swing_index),
+    startS: r3(row.start_s) ?? 0,
+    endS: r3(row.end_s) ?? 0,
+    impactSource: row.impact_source,
+    tempoRatio: r2(row.tempo_ratio),
+    hidden: Boolean(row.hidden),
+    stale: Boolean(row.stale),
+    recording: {
+      id: Number(row.recording_id),
+      filename: row.filename,
+      algorithmVersion: row.algorithm_version ?? null,
+      parameters: jsonColumn(row.parameters),
+    },
+    session: { id: Number(row.session_id), sessionDate: toIsoDate(row.session_date) ?? '', context: row.context },
+    athlete: { id: Number(row.athlete_id), displayName: row.display_name, dateOfBirth: toIsoDate(row.date_of_birth) },
+    // In event order, not row order.
+    events: eventNames
+      .map((name) => ({ name, e: events.find((x) => x.name === name), v: values.find((x) => x.event === name) }))
+      .filter(({ e }) => e !== undefined)
+      .map(({ name, e, v }) => ({
+        name,
+        timeS: r3(e.time_s) ?? 0,
+        source: e.source,
+        autoTimeS: r3(e.auto_time_s),
+        misfit: Boolean(e.misfit),
+        leadPct: r1(v?.lead_pct),
+        leadHeelPct: r1(v?.lead_heel_pct),
+        trailHeelPct: r1(v?.trail_heel_pct),
+        copXMm: r1(v?.cop_x_mm),
+        copYMm: r1(v?.cop_y_mm),
+      })),
+    phases: phaseNames
+      .map((name) => ({ name, p: phases.find((x) => x.phase === name) }))
+      .filter(({ p }) => p !== undefined)
+      .map(({ name, p }) => ({
+        name,
+        durationS: r3(p.duration_s),
+        copPathMm: r1(p.cop_path_mm),
+        peakCopSpeedMmS: r0(p.peak_cop_speed_mm_s),
+        meanLeadPct: r1(p.mean_lead_pct),
+      })),
+  };
+}

@@ -1,0 +1,31 @@
+// Starts the one worker of this server process (called from instrumentation.ts). It has its own small pool, so a
+// long results transaction never holds up the connections that serve requests.
+import knex from 'knex';
+import { connectionFromUrl } from '@/lib/db/connection';
+import { getEnv } from '@/lib/env';
+import { getStore } from '@/lib/storage';
+import { startWorker, type Worker } from './worker';
+
+const globalForWorker = globalThis as typeof globalThis & { __stancelineWorker?: Worker };
+
+export function startAppWorker(): Worker | null {
+  const env = getEnv();
+  if (env.WORKER_ENABLED !== 'true') return null;
+  if (globalForWorker.__stancelineWorker) return globalForWorker.__stancelineWorker;
+  const db = knex({ client: 'mysql2', connection: connectionFromUrl(env.DATABASE_URL), pool: { min: 0, max: 2 } });
+  const worker = startWorker({
+    db,
+    store: getStore(),
+    pollMs: env.WORKER_POLL_MS,
+    lockTimeoutS: env.JOB_LOCK_TIMEOUT_S,
+    log: (message) => console.error(`[stanceline worker] ${message}`),
+  });
+  globalForWorker.__stancelineWorker = worker;
+  console.log(`[stanceline worker] ${worker.id} polling every ${env.WORKER_POLL_MS} ms, raw files in ${getStore().description}`);
+  return worker;
+}
+
+/** Nudges this process's worker (after an upload or a reprocess request), if it runs here. */
+export function wakeAppWorker(): void {
+  globalForWorker.__stancelineWorker?.wake();
+}

@@ -1,0 +1,199 @@
+import 'server-only';
+import type { Knex } from 'knex';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import { EVENT_NAMES, type EventName } from '@/lib/signal';
+import type { RecordingOptions } from './options';
+
+// Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
+// percentages to 1, exactly as `npm run analyze` prints them (roundAnalysis), so the two can be compared 1:1.
+
+export type RecordingStatus = 'received' | 'processing' | 'ready' | 'failed';
+
+const r3 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 1000) / 1000 || 0);
+const r1 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 10) / 10 || 0);
+const r2 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 100) / 100 || 0);
+
+function jsonColumn<T>(value: unknown): T | null {
+  if (value === null || value === undefined) return null;
+  return (typeof value === 'string' ? JSON.parse(value) : value) as T;
+}
+
+export interface SwingView {
+  id: number;
+  recordingId: number;
+  index: number;
+  startS: number;
+  endS: number;
+  events: Record<EventName, number>;
+  /** where each event time came from; `misfit` marks a manual time a reprocess left out of place */
+  eventSources: Record<EventName, { source: 'auto' | 'manual'; autoTimeS: number | null; misfit: boolean }>;
+  impactSource: 'marker' | 'detected';
+  tempoRatio: number | null;
+  leadPctAtImpact: number | null;
+  hidden: boolean;
+  stale: boolean;
+}
+
+type SwingRow = { id: number; recording_id: number; swing_index: number; start_s: number; end_s: number; impact_source: 'marker' | 'detected'; tempo_ratio: number | null; hidden: boolean; stale: boolean };
+
+async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
+  const swings: SwingRow[] = await query.select('s.id', 's.recording_id', 's.swing_index', 's.start_s', 's.end_s', 's.impact_source', 's.tempo_ratio', 's.hidden', 's.stale');
+  if (swings.length === 0) return [];
+  const ids = swings.map((s) => s.id);
+  const events = await db('swing_events').whereIn('swing_id', ids).select('swing_id', 'name', 'time_s', 'source', 'auto_time_s', 'misfit');
+  const impacts = await db('swing_event_values').whereIn('swing_id', ids).andWhere({ event: 'impact' }).select('swing_id', 'lead_pct');
+  const eventsBySwing = new Map<number, { name: EventName; time_s: number; source: 'auto' | 'manual'; auto_time_s: number | null; misfit: boolean }[]>();
+  for (const e of events) {
+    if (!eventsBySwing.has(e.swing_id)) eventsBySwing.set(e.swing_id, []);
+    eventsBySwing.get(e.swing_id)!.push(e);
+  }
+  const leadAtImpact = new Map<number, number | null>(impacts.map((v) => [v.swing_id as number, v.lead_pct as number | null]));
+  return swings.map((s) => {
+    const mine = eventsBySwing.get(s.id) ?? [];
+    const times = {} as SwingView['events'];
+    const sources = {} as SwingView['eventSources'];
+    for (const name of EVENT_NAMES) {
+      const e = mine.find((row) => row.name === name);
+      times[name] = r3(e?.time_s) as number;
+      sources[name] = { source: e?.source ?? 'auto', autoTimeS: r3(e?.auto_time_s), misfit: Boolean(e?.misfit) };
+    }
+    return {
+      id: Number(s.id),
+      recordingId: Number(s.recording_id),
+      index: Number(s.swing_index),
+      startS: r3(s.start_s) as number,
+      endS: r3(s.end_s) as number,
+      events: times,
+      eventSources: sources,
+      impactSource: s.impact_source,
+      tempoRatio: r2(s.tempo_ratio),
+      leadPctAtImpact: r1(leadAtImpact.get(s.id)),
+      hidden: Boolean(s.hidden),
+      stale: Boolean(s.stale),
+    };
+  });
+}
+
+export interface RecordingView {
+  id: number;
+  athleteId: number;
+  sessionId: number;
+  filename: string;
+  byteSize: number;
+  sha256: string;
+  status: RecordingStatus;
+  error: { message: string; line: number | null; column: number | null } | null;
+  /** the processing parameters of the last analysis; before one, the requested values */
+  parameters: Record<string, unknown>;
+  options: RecordingOptions;
+  algorithmVersion: string | null;
+  recording: Record<string, unknown> | null;
+  createdAt: string;
+  processedAt: string | null;
+  swings: SwingView[];
+}
+
+type RecordingRow = {
+  id: number;
+  athlete_id: number;
+  session_id: number;
+  filename: string;
+  byte_size: number;
+  sha256: string;
+  status: RecordingStatus;
+  error_message: string | null;
+  error_line: number | null;
+  error_column: number | null;
+  options: unknown;
+  parameters: unknown;
+  algorithm_version: string | null;
+  metadata: unknown;
+  created_at: Date;
+  processed_at: Date | null;
+};
+
+function requested(options: RecordingOptions): Record<string, unknown> {
+  return {
+    handedness: options.handedness,
+    stance_width_mm: options.stanceWidthMm,
+    cutoff_hz: options.cutoffHz,
+    layout: options.layout ? ('preset' in options.layout ? options.layout.preset : options.layout.custom.id) : null,
+  };
+}
+
+function toView(row: RecordingRow, swings: SwingView[]): RecordingView {
+  const options = jsonColumn<RecordingOptions>(row.options)!;
+  return {
+    id: Number(row.id),
+    athleteId: Number(row.athlete_id),
+    sessionId: Number(row.session_id),
+    filename: row.filename,
+    byteSize: Number(row.byte_size),
+    sha256: row.sha256,
+    status: row.status,
+    error: row.status === 'failed' ? { message: row.error_message ?? 'processing failed', line: row.error_line, column: row.error_column } : null,
+    parameters: jsonColumn<Record<string, unknown>>(row.parameters) ?? requested(options),
+    options,
+    algorithmVersion: row.algorithm_version,
+    recording: jsonColumn<Record<string, unknown>>(row.metadata),
+    createdAt: new Date(row.created_at).toISOString(),
+    processedAt: row.processed_at ? new Date(row.processed_at).toISOString() : null,
+    swings,
+  };
+}
+
+const RECORDING_COLUMNS = [
+  'id',
+  'athlete_id',
+  'session_id',
+  'filename',
+  'byte_size',
+  'sha256',
+  'status',
+  'error_message',
+  'error_line',
+  'error_column',
+  'options',
+  'parameters',
+  'algorithm_version',
+  'metadata',
+  'created_at',
+  'processed_at',
+];
+
+export async function getRecordingView(id: number): Promise<RecordingView | null> {
+  const row: RecordingRow | undefined = await db('recordings').where({ id }).first(RECORDING_COLUMNS);
+  if (!row) return null;
+  const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
+  return toView(row, swings);
+}
+
+export interface SessionRecordingsView {
+  session: { id: number; athleteId: number; sessionDate: string; context: string; location: string | null };
+  recordings: (Omit<RecordingView, 'swings'> & { swingCount: number })[];
+  swings: SwingView[];
+}
+
+export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
+  const session = await db('practice_sessions').where({ id: sessionId }).first('id', 'athlete_id', 'session_date', 'context', 'location');
+  if (!session) return null;
+  const rows: RecordingRow[] = await db('recordings').where({ session_id: sessionId }).orderBy('id').select(RECORDING_COLUMNS);
+  const swings = await swingViews(
+    db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.session_id', sessionId).orderBy(['s.recording_id', 's.swing_index']),
+  );
+  return {
+    session: {
+      id: Number(session.id),
+      athleteId: Number(session.athlete_id),
+      sessionDate: toIsoDate(session.session_date) ?? '',
+      context: session.context,
+      location: session.location,
+    },
+    recordings: rows.map((row) => {
+      const { swings: _unused, ...rest } = toView(row, []);
+      return { ...rest, swingCount: swings.filter((s) => s.recordingId === Number(row.id) && !s.stale).length };
+    }),
+    swings,
+  };
+}

@@ -1,0 +1,46 @@
+// Writes an incoming upload stream to a spool file while counting bytes and hashing (SHA-256), so the hash is
+// known before the file is stored and nothing is held in memory. The caller moves the file into the store.
+import { createHash, randomUUID } from 'node:crypto';
+import { createWriteStream } from 'node:fs';
+import { mkdir, rm } from 'node:fs/promises';
+import { join } from 'node:path';
+import { Transform, type Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+
+export interface SpooledFile {
+  path: string;
+  byteSize: number;
+  sha256: string;
+  /** the first bytes, to tell a text file from a binary one without reading it again */
+  head: Buffer;
+}
+
+const HEAD_BYTES = 8192;
+
+export async function spoolUpload(source: Readable, spoolDir: string): Promise<SpooledFile> {
+  await mkdir(spoolDir, { recursive: true });
+  const path = join(spoolDir, `${randomUUID()}.part`);
+  const hash = createHash('sha256');
+  let byteSize = 0;
+  const headParts: Buffer[] = [];
+  let headLength = 0;
+  const meter = new Transform({
+    transform(chunk: Buffer, _encoding, done) {
+      hash.update(chunk);
+      byteSize += chunk.length;
+      if (headLength < HEAD_BYTES) {
+        const part = chunk.subarray(0, HEAD_BYTES - headLength);
+        headParts.push(Buffer.from(part));
+        headLength += part.length;
+      }
+      done(null, chunk);
+    },
+  });
+  try {
+    await pipeline(source, meter, createWriteStream(path));
+  } catch (error) {
+    await rm(path, { force: true });
+    throw error;
+  }
+  return { path, byteSize, sha256: hash.digest('hex'), head: Buffer.concat(headParts) };
+}

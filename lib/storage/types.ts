@@ -1,0 +1,27 @@
+// The raw-file store: where uploaded recordings are kept, byte for byte, before anything parses them.
+import type { Readable } from 'node:stream';
+
+export interface RawFileStore {
+  /** "local:/abs/dir" or "s3:bucket", for logs */
+  readonly description: string;
+  /** Moves a finished local file (a spool file of the upload) into the store under `key`. */
+  putFile(key: string, localPath: string, byteSize: number): Promise<void>;
+  /** The stored bytes as a stream; throws StorageNotFoundError when nothing is stored under `key`. */
+  read(key: string): Promise<Readable>;
+  exists(key: string): Promise<boolean>;
+  remove(key: string): Promise<void>;
+}
+
+export class StorageNotFoundError extends Error {
+  override name = 'StorageNotFoundError';
+  constructor(readonly key: string) {
+    super(`no stored file under "${key}"`);
+  }
+}
+
+/** Keys are relative paths of safe characters: no "..", no leading "/", so a key can never leave its folder. */
+export function assertSafeKey(key: string): void {
+  if (!/^[A-Za-z0-9][A-Za-z0-9._/-]{0,240}$/.test(key) || key.split('/').some((part) => part === '..' || part === '')) {
+    throw new RangeError(`unsafe storage key "${key}"`);
+  }
+}

@@ -22,6 +22,14 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          name: 'charts',
+          include: ['tests/charts/**/*.test.ts', 'tests/charts/**/*.test.tsx'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'integration',
           include: ['tests/db/**/*.test.ts', 'tests/api/**/*.test.ts', 'tests/lib/**/*.test.ts'],
           environment: 'node',

@@ -1,5 +1,5 @@
 // Raw files in S3-compatible object storage through @aws-sdk/client-s3. Path-style addressing (bucket in the path)
-// so MinIO, Ceph RGW, Garage or a local fake answer on one host name. Uploads stream the spool file with its known
+// so any S3-compatible service or the local fake answers on one host name. Uploads stream the spool file with its known
 // length, so memory stays bounded whatever the file size.
 import { createReadStream } from 'node:fs';
 import type { Readable } from 'node:stream';

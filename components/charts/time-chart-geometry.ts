@@ -1,0 +1,26 @@
+// Sizes shared by the time chart's static layers and its interactive shell.
+import { innerHeight, innerWidth, timeScale, valueScale, type ChartBox } from './lib/scales';
+
+export const MARGIN = { top: 8, right: 14, bottom: 8, left: 40 };
+export const LABEL_ROW_PX = 13;
+export const FONT_PX = 10.5;
+
+export interface GeometryInput {
+  width: number;
+  height: number;
+  domain: [number, number];
+  yDomain: [number, number];
+  showEventLabels?: boolean;
+  showTimeAxis?: boolean;
+}
+
+/** The chart box (two label rows on top when event labels are shown, a tick row below with the time axis) and scales. */
+export function chartGeometry(p: GeometryInput) {
+  const labelRowsPx = p.showEventLabels ? LABEL_ROW_PX * 2 + 4 : 0;
+  const box: ChartBox = {
+    width: p.width,
+    height: p.height,
+    margin: { ...MARGIN, top: MARGIN.top + labelRowsPx, bottom: p.showTimeAxis ? 24 : MARGIN.bottom },
+  };
+  return { box, w: innerWidth(box), h: innerHeight(box), x: timeScale(p.domain, box), y: valueScale(p.yDomain, box) };
+}

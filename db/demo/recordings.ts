@@ -12,6 +12,7 @@ import type { RecordingOptions } from '../../lib/recordings/options';
 import { DISTRACTORS, generateSession } from '../../lib/signal/synthetic';
 import type { RawFileStore } from '../../lib/storage/types';
 import { DEMO_ATHLETES } from './scenario';
+import { seedDemoSwingNotes } from './swing-notes';
 
 export interface DemoRecording {
   id: number;
@@ -73,6 +74,7 @@ export async function seedDemoRecordings(knex: Knex, store: RawFileStore): Promi
       });
     }
     await drainQueue({ db: knex, store, workerId: 'demo-seed', pollMs: 100, lockTimeoutS: 60 });
+    await seedDemoSwingNotes(knex);
     const [row] = await knex('recordings').where({ status: 'ready' }).whereIn('id', DEMO_RECORDINGS.map((d) => d.id)).count({ n: '*' });
     return Number(row.n);
   } finally {

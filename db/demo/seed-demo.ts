@@ -6,6 +6,10 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'swing_annotations',
+  'swing_event_corrections',
+  'swing_labels',
+  'swing_series',
   'recording_series',
   'swing_event_values',
   'swing_phase_metrics',

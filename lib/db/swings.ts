@@ -4,9 +4,13 @@ import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
-import { eventNames, phaseNames, type SwingDetail } from '@/components/swings/swing-schemas';
+import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/components/swings/swing-schemas';
+import { listAnnotations } from '@/lib/swings/annotations';
+import { labelsOf } from '@/lib/swings/labels';
+import { correctionsView, layoutView, overviewView, sensorFramesView, seriesView, siblingsView, storedSeriesOf } from '@/lib/swings/viewer-data';
 
-// One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id.
+// One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id; with
+// getSwingForViewer also the viewer's data (lib/swings/viewer-data.ts), labels, notes and the correction audit.
 // Numbers are rounded the way `npm run analyze` prints them (lib/recordings/views.ts): times to 3 decimals,
 // percentages and millimetres to 1, mm/s to whole numbers, the tempo ratio to 2, so the page and the CLI can be compared 1:1.
 
@@ -25,8 +29,38 @@ function jsonColumn(value: unknown): Record<string, unknown> {
   return (typeof value === 'string' ? JSON.parse(value) : value) as Record<string, unknown>;
 }
 
-/** 404 for an unknown id, 403 for a swing of an athlete the viewer does not see (coach: roster; student: own). */
-export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingDetail> {
+/**
+ * 404 for an unknown id, 403 for a swing of an athlete the viewer does not see (coach: roster; student: own).
+ * A student gets only the notes shared with them and no correction audit.
+ */
+export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingView> {
+  const { detail, access } = await getSwingDetail(viewer, swingId);
+  const isCoach = access === 'coach';
+  const [stored, overview, siblings, layout, labelRow, annotations, corrections] = await Promise.all([
+    storedSeriesOf(swingId),
+    overviewView(detail.recording.id),
+    siblingsView(swingId, detail.recording.id, detail.index, detail.athlete.id),
+    layoutView(detail.recording.id),
+    db('swing_labels').where({ swing_id: swingId }).first(),
+    listAnnotations(swingId, !isCoach),
+    isCoach ? correctionsView(swingId) : Promise.resolve([]),
+  ]);
+  return {
+    ...detail,
+    series: seriesView(stored),
+    overview,
+    siblings,
+    ...layout,
+    sensorFrames: sensorFramesView(stored, detail.events),
+    labels: labelsOf(labelRow, detail.hidden),
+    annotations,
+    corrections,
+    canEdit: isCoach,
+  };
+}
+
+/** The numbers only (the shape of issue 4's swing page). */
+export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{ detail: SwingDetail; access: 'coach' | 'student' }> {
   const row = await db('swings as s')
     .join('recordings as r', 'r.id', 's.recording_id')
     .join('practice_sessions as p', 'p.id', 'r.session_id')
@@ -53,7 +87,8 @@ export async function getSwingForViewer(viewer: Viewer, swingId: number): Promis
       'a.date_of_birth',
     );
   if (!row) throw new NotFoundError('No swing with this id.');
-  if (!(await athleteAccess(viewer, Number(row.athlete_id)))) throw new ForbiddenError('This swing belongs to an athlete you do not see.');
+  const access = await athleteAccess(viewer, Number(row.athlete_id));
+  if (!access) throw new ForbiddenError('This swing belongs to an athlete you do not see.');
 
   const [events, values, phases] = await Promise.all([
     db('swing_events').where({ swing_id: swingId }).select('name', 'time_s', 'source', 'auto_time_s', 'misfit'),
@@ -61,7 +96,7 @@ export async function getSwingForViewer(viewer: Viewer, swingId: number): Promis
     db('swing_phase_metrics').where({ swing_id: swingId }).select('phase', 'duration_s', 'cop_path_mm', 'peak_cop_speed_mm_s', 'mean_lead_pct'),
   ]);
 
-  return {
+  const detail: SwingDetail = {
     id: Number(row.id),
     index: Number(row.swing_index),
     startS: r3(row.start_s) ?? 0,
@@ -105,4 +140,8 @@ export async function getSwingForViewer(viewer: Viewer, swingId: number): Promis
         meanLeadPct: r1(p.mean_lead_pct),
       })),
   };
+  return { detail, access };
 }
+
+/** The GET /api/swings/:id `swing` body for server components (the same function the route uses). */
+export const getSwingViewForViewer = getSwingForViewer;

@@ -60,3 +60,26 @@ export function displaySeries(series: DerivedSeries, buckets = DISPLAY_BUCKETS):
   const duration = n > 1 ? series.time[n - 1] - series.time[0] : 0;
   return { method: 'minmax', buckets: count, bucketS: count > 0 ? duration / count : 0, t, traces };
 }
+
+/**
+ * A low-resolution overview of some traces for the whole recording, from the stored display series: each bucket
+ * becomes two points (its min at the bucket start, its max half a bucket later) so peaks stay visible; a bucket of
+ * one sample (min = max) stays one point.
+ */
+export function overviewOf(
+  display: Pick<DisplaySeries, 'bucketS' | 't' | 'traces'>,
+  names: readonly TraceName[],
+): { time: number[]; traces: Record<string, (number | null)[]> } {
+  const time: number[] = [];
+  const traces: Record<string, (number | null)[]> = Object.fromEntries(names.map((n) => [n, []]));
+  display.t.forEach((t0, b) => {
+    const single = names.every((n) => display.traces[n].min[b] === display.traces[n].max[b]);
+    time.push(t0);
+    for (const n of names) traces[n].push(display.traces[n].min[b]);
+    if (!single) {
+      time.push(Math.round((t0 + display.bucketS / 2) * 1000) / 1000);
+      for (const n of names) traces[n].push(display.traces[n].max[b]);
+    }
+  });
+  return { time, traces };
+}

@@ -4,6 +4,7 @@ import { derive, DEFAULT_DERIVE, derivativeWindowFor } from './derive';
 import { detectionParams, type DetectionParams } from './events';
 import { atEvents, phaseRows, tempoRatio } from './phases';
 import { DEFAULT_MAX_GAP_S, regularise } from './regularise';
+import { sensorForceWindows, type SensorWindows } from './sensor-forces';
 import { findSwings, type SwingCandidate } from './swings';
 import {
   EVENT_NAMES,
@@ -36,6 +37,8 @@ export interface AnalysisOutput {
   series: DerivedSeries;
   /** every candidate the swing finder looked at, accepted or with its rejection reason */
   candidates: SwingCandidate[];
+  /** per-sensor filtered forces over each swing's window [start_s, end_s] (same order as result.swings) */
+  sensorWindows: SensorWindows;
 }
 
 function metaNumber(meta: Record<string, string>, key: string): number | undefined {
@@ -85,6 +88,8 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     };
   });
 
+  const sensorWindows = sensorForceWindows(u, layout, cutoffHz, DEFAULT_DERIVE.filterOrder, swings.map((sw) => ({ from: sw.start, to: sw.end })));
+
   const n = t.length;
   const result: AnalysisResult = {
     recording: {
@@ -108,7 +113,7 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     gaps: u.gaps,
     swings: results,
   };
-  return { result, series, candidates };
+  return { result, series, candidates, sensorWindows };
 }
 
 const round = (v: number, d: number) => {

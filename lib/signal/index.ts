@@ -10,6 +10,7 @@ export * from './layouts';
 export * from './onset';
 export * from './events';
 export * from './swings';
+export * from './sensor-forces';
 export * from './phases';
 export * from './registration';
 export * from './bands';

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TsMigrationSource } from '@/knexfile';
 import { createScratchDatabase, listTables, type ScratchDatabase } from './scratch-database';
 
-// Tables of the issue 2 schema, then those of issue 4 (recordings and their results), in migration order.
+// Tables of the issue 2 schema, then those of issue 4 (recordings and their results), then issue 5, in migration order.
 const APP_TABLES = [
   'academies',
   'users',
@@ -18,6 +18,11 @@ const APP_TABLES = [
   'swing_phase_metrics',
   'swing_event_values',
   'recording_series',
+  // issue 5: the swing viewer's data and the coach's work on swings
+  'swing_series',
+  'swing_labels',
+  'swing_event_corrections',
+  'swing_annotations',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 

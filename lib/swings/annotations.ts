@@ -1,0 +1,78 @@
+import 'server-only';
+import type { Viewer } from '@/lib/auth/viewer';
+import type { Annotation } from '@/components/swings/swing-schemas';
+import { db } from '@/lib/db/client';
+import { ForbiddenError, NotFoundError } from '@/lib/http';
+import type { AnnotationCreateInput, AnnotationPatchInput } from '@/lib/validations/swing';
+
+// Notes on a swing. Coaches see all of a swing's notes; the student only those shared with them. A note is changed
+// or removed by its author or by the athlete's coach (route handlers check the coach first).
+
+type NoteRow = { id: number; author_name: string | null; author_role: string | null; body: string; time_s: number | null; phase: Annotation['phase']; visibility: Annotation['visibility']; created_at: Date; updated_at: Date };
+
+function toAnnotation(r: NoteRow): Annotation {
+  return {
+    id: Number(r.id),
+    authorName: r.author_name ?? 'Former user',
+    authorRole: r.author_role ?? 'coach',
+    body: r.body,
+    timeS: r.time_s === null ? null : Math.round(Number(r.time_s) * 1000) / 1000,
+    phase: r.phase ?? null,
+    visibility: r.visibility,
+    createdAt: new Date(r.created_at).toISOString(),
+    updatedAt: new Date(r.updated_at).toISOString(),
+  };
+}
+
+const noteQuery = () =>
+  db('swing_annotations as n')
+    .leftJoin('users as u', 'u.id', 'n.author_user_id')
+    .select('n.id', 'u.name as author_name', 'u.role as author_role', 'n.body', 'n.time_s', 'n.phase', 'n.visibility', 'n.created_at', 'n.updated_at');
+
+export async function listAnnotations(swingId: number, sharedOnly: boolean): Promise<Annotation[]> {
+  const q = noteQuery().where('n.swing_id', swingId).orderBy([{ column: 'n.created_at' }, { column: 'n.id' }]);
+  if (sharedOnly) q.andWhere('n.visibility', 'shared');
+  return (await q).map(toAnnotation);
+}
+
+async function one(id: number): Promise<Annotation> {
+  return toAnnotation(await noteQuery().where('n.id', id).first());
+}
+
+/** A time pin and a phase pin exclude each other: setting one clears the other. */
+function pins(input: { timeS?: number | null; phase?: Annotation['phase'] | null }): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  if (input.timeS !== undefined) out.time_s = input.timeS;
+  if (input.phase !== undefined) out.phase = input.phase;
+  if (input.timeS != null) out.phase = null;
+  if (input.phase != null) out.time_s = null;
+  return out;
+}
+
+export async function createAnnotation(viewer: Viewer, swingId: number, input: AnnotationCreateInput): Promise<Annotation> {
+  const [id] = await db('swing_annotations').insert({ swing_id: swingId, author_user_id: viewer.id, body: input.body, visibility: input.visibility, time_s: null, phase: null, ...pins(input) });
+  return one(Number(id));
+}
+
+async function noteOf(swingId: number, annotationId: number): Promise<{ author_user_id: number | null }> {
+  const row = await db('swing_annotations').where({ id: annotationId, swing_id: swingId }).first('author_user_id');
+  if (!row) throw new NotFoundError('No note with this id on this swing.');
+  return row;
+}
+
+/** `isCoach`: the viewer coaches the swing's athlete (may change any note of the swing); else only their own. */
+export async function updateAnnotation(viewer: Viewer, isCoach: boolean, swingId: number, annotationId: number, input: AnnotationPatchInput): Promise<Annotation> {
+  const note = await noteOf(swingId, annotationId);
+  if (!isCoach && Number(note.author_user_id) !== viewer.id) throw new ForbiddenError('Only the author or the athlete’s coach can change this note.');
+  const changes: Record<string, unknown> = { ...pins(input) };
+  if (input.body !== undefined) changes.body = input.body;
+  if (input.visibility !== undefined) changes.visibility = input.visibility;
+  await db('swing_annotations').where({ id: annotationId }).update({ ...changes, updated_at: db.raw('NOW(3)') });
+  return one(annotationId);
+}
+
+export async function deleteAnnotation(viewer: Viewer, isCoach: boolean, swingId: number, annotationId: number): Promise<void> {
+  const note = await noteOf(swingId, annotationId);
+  if (!isCoach && Number(note.author_user_id) !== viewer.id) throw new ForbiddenError('Only the author or the athlete’s coach can remove this note.');
+  await db('swing_annotations').where({ id: annotationId }).delete();
+}

@@ -1,0 +1,103 @@
+import 'server-only';
+import type { EventName } from '@/lib/signal';
+import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
+import type { SwingView } from '@/components/swings/swing-schemas';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
+import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
+
+// The viewer's parts of GET /api/swings/:id besides the numbers: the swing's full-rate traces, the recording's
+// overview, neighbours for previous/next and the overlay pick-list, the sensor layout and per-sensor forces at events.
+
+const jsonColumn = <T>(v: unknown): T | null => (v === null || v === undefined ? null : ((typeof v === 'string' ? JSON.parse(v) : v) as T));
+// Display rounding: time to 0.1 ms, shares / mm / mm/s to 0.01 (well below what a chart or a reader can tell apart).
+const r4 = (v: number) => Math.round(v * 1e4) / 1e4;
+const r2 = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100 || 0);
+
+export async function storedSeriesOf(swingId: number): Promise<StoredSwingSeries | null> {
+  const row = await db('swing_series').where({ swing_id: swingId }).first('data');
+  return row ? parseStoredSeries(row.data) : null;
+}
+
+export function seriesView(stored: StoredSwingSeries | null): SwingView['series'] {
+  if (!stored) return { time: [], leadPct: [], leadHeelPct: [], trailHeelPct: [], copX: [], copY: [], copSpeed: [] };
+  const tr = stored.traces;
+  return {
+    time: stored.time.map(r4),
+    leadPct: tr.leadPct.map(r2),
+    leadHeelPct: tr.leadHeelPct.map(r2),
+    trailHeelPct: tr.trailHeelPct.map(r2),
+    copX: tr.copX.map(r2),
+    copY: tr.copY.map(r2),
+    copSpeed: tr.copSpeed.map(r2),
+  };
+}
+
+/** Per-sensor forces at the sample nearest to each event's current time. */
+export function sensorFramesView(stored: StoredSwingSeries | null, events: { name: EventName; timeS: number }[]): SwingView['sensorFrames'] {
+  if (!stored || stored.time.length === 0) return [];
+  return events.map((e) => {
+    const i = nearestSample(stored.time, e.timeS);
+    return { timeS: e.timeS, event: e.name, forcesN: Object.fromEntries(stored.sensorIds.map((id, k) => [id, stored.sensorForces[k]?.[i] ?? 0])) };
+  });
+}
+
+export async function overviewView(recordingId: number): Promise<SwingView['overview']> {
+  const row = await db('recording_series').where({ recording_id: recordingId }).first('bucket_s', 'data');
+  if (!row) return { time: [], leadPct: [], copX: [] };
+  const data = jsonColumn<Pick<DisplaySeries, 't' | 'traces'>>(row.data)!;
+  const o = overviewOf({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, ['lead_pct', 'cop_x_mm']);
+  return { time: o.time, leadPct: o.traces.lead_pct, copX: o.traces.cop_x_mm };
+}
+
+export async function siblingsView(swingId: number, recordingId: number, swingIndex: number, athleteId: number): Promise<SwingView['siblings']> {
+  const [prev, next, same] = await Promise.all([
+    db('swings').where({ recording_id: recordingId }).andWhere('swing_index', '<', swingIndex).orderBy('swing_index', 'desc').first('id'),
+    db('swings').where({ recording_id: recordingId }).andWhere('swing_index', '>', swingIndex).orderBy('swing_index', 'asc').first('id'),
+    db('swings as s')
+      .join('recordings as r', 'r.id', 's.recording_id')
+      .join('practice_sessions as p', 'p.id', 'r.session_id')
+      .where('r.athlete_id', athleteId)
+      .andWhere('s.hidden', false)
+      .andWhere('s.stale', false)
+      .andWhereNot('s.id', swingId)
+      .orderBy([{ column: 'p.session_date', order: 'desc' }, { column: 'r.id', order: 'desc' }, { column: 's.swing_index', order: 'asc' }])
+      .limit(50)
+      .select('s.id', 's.swing_index', 'r.filename', 'p.session_date'),
+  ]);
+  return {
+    previousId: prev ? Number(prev.id) : null,
+    nextId: next ? Number(next.id) : null,
+    sameAthlete: same.map((s) => ({ id: Number(s.id), label: `${toIsoDate(s.session_date)} · ${s.filename} · swing ${s.swing_index}` })),
+  };
+}
+
+/** The layout the recording was processed with, and the handedness and stance width of its parameters. */
+export async function layoutView(recordingId: number): Promise<Pick<SwingView, 'layout' | 'handedness' | 'stanceWidthMm'>> {
+  const row = await db('recordings').where({ id: recordingId }).first('options', 'parameters', 'metadata');
+  const options = recordingOptionsSchema.parse(jsonColumn(row.options));
+  const params = jsonColumn<{ handedness?: 'right' | 'left'; stance_width_mm?: number }>(row.parameters) ?? {};
+  const meta = jsonColumn<{ metadata?: Record<string, string> }>(row.metadata)?.metadata ?? {};
+  return {
+    layout: resolveLayout(options, meta),
+    handedness: params.handedness ?? options.handedness,
+    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm),
+  };
+}
+
+export async function correctionsView(swingId: number): Promise<SwingView['corrections']> {
+  const rows = await db('swing_event_corrections as c')
+    .leftJoin('users as u', 'u.id', 'c.user_id')
+    .where('c.swing_id', swingId)
+    .orderBy([{ column: 'c.at', order: 'desc' }, { column: 'c.id', order: 'desc' }])
+    .select('c.event', 'c.from_s', 'c.to_s', 'c.kind', 'u.name', 'c.at');
+  return rows.map((r) => ({
+    event: r.event,
+    fromS: Math.round(Number(r.from_s) * 1000) / 1000,
+    toS: Math.round(Number(r.to_s) * 1000) / 1000,
+    kind: r.kind,
+    byName: r.name ?? 'Former user',
+    at: new Date(r.at).toISOString(),
+  }));
+}

@@ -20,3 +20,20 @@ export const parameterLabels: Record<string, string> = {
   sample_rate_hz: 'Sample rate (Hz)',
   layout: 'Sensor layout',
 };
+
+// Swing labels (trade terms for clubs and ball outcomes).
+export const clubLabels: Record<string, string> = {
+  driver: 'Driver',
+  wood: 'Fairway wood',
+  hybrid: 'Hybrid',
+  'iron-3': '3-iron',
+  'iron-4': '4-iron',
+  'iron-5': '5-iron',
+  'iron-6': '6-iron',
+  'iron-7': '7-iron',
+  'iron-8': '8-iron',
+  'iron-9': '9-iron',
+  wedge: 'Wedge',
+};
+export const strikeLabels: Record<string, string> = { solid: 'Solid', fat: 'Fat', thin: 'Thin', topped: 'Topped' };
+export const flightLabels: Record<string, string> = { push: 'Push', pull: 'Pull', slice: 'Slice', hook: 'Hook', fade: 'Fade', draw: 'Draw', straight: 'Straight' };

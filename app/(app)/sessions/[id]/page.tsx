@@ -39,13 +39,18 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
         title={`${formatDate(view.session.sessionDate)} · ${contextLabels[context] ?? view.session.context}`}
         subtitle={view.session.location ?? undefined}
         action={
-          viewer.role === 'coach' ? (
-            <Link href={`/upload?athlete=${athlete.id}&session=${view.session.id}`} className={buttonClass('primary')}>
-              Upload recordings
+          <span className="flex items-center gap-2">
+            <Link href={`/sessions/${view.session.id}/summary`} className={buttonClass('secondary')} data-testid="lesson-summary-link">
+              Lesson summary
             </Link>
-          ) : (
-            <Badge>Read-only</Badge>
-          )
+            {viewer.role === 'coach' ? (
+              <Link href={`/upload?athlete=${athlete.id}&session=${view.session.id}`} className={buttonClass('primary')}>
+                Upload recordings
+              </Link>
+            ) : (
+              <Badge>Read-only</Badge>
+            )}
+          </span>
         }
       />
       <div className="space-y-6">

@@ -1,48 +1,38 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { preload } from 'react-dom';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
-import { formatTempo, impactSourceLabels } from '@/components/recordings/format';
-import { EventTable } from '@/components/swings/event-table';
-import { PhaseTable } from '@/components/swings/phase-table';
 import { ProcessingParameters } from '@/components/swings/processing-parameters';
 import type { SwingDetail } from '@/components/swings/swing-schemas';
+import { SwingWorkbench } from '@/components/swings/swing-workbench';
 import { Badge } from '@/components/ui/badge';
 import { Card, PageHeader } from '@/components/ui/card';
 import { contextLabels, formatDate } from '@/components/ui/format';
 import { requirePageRole } from '@/lib/auth/roles';
-import { getSwingForViewer } from '@/lib/db/swings';
+import { getSwingDetail } from '@/lib/db/swings';
 import { HttpError, idParamSchema } from '@/lib/http';
 import { isMinor } from '@/lib/validations/athlete';
 
 export const metadata: Metadata = { title: 'Swing' };
 
-function Fact({ label, value, testId }: { label: string; value: string; testId?: string }) {
-  return (
-    <div className="rounded-lg border border-surface-line bg-surface p-4">
-      <p className="text-xs font-medium uppercase tracking-wide text-ink-muted">{label}</p>
-      <p className="mt-1 text-lg font-semibold tabular-nums text-ink" data-testid={testId}>
-        {value}
-      </p>
-    </div>
-  );
-}
-
-// One swing's phase table (the trace viewer comes later). Coach of the athlete or the student themself;
-// anyone else sees "not found", as for athletes and sessions.
+// One swing: first paint here on the server (title, athlete, session, cautions, the phase and event tables); the
+// traces, editing, labels and notes come from the client viewer through GET /api/swings/:id. Coach of the athlete
+// or the student themself; anyone else sees "not found", as for athletes and sessions.
 export default async function SwingPage({ params }: { params: Promise<{ id: string }> }) {
   const viewer = await requirePageRole('coach', 'student');
   const id = idParamSchema.safeParse((await params).id);
   if (!id.success) notFound();
   let swing: SwingDetail;
   try {
-    swing = await getSwingForViewer(viewer, id.data);
+    swing = (await getSwingDetail(viewer, id.data)).detail; // the numbers only; the traces come through the API
   } catch (error) {
     if (error instanceof HttpError && (error.status === 404 || error.status === 403)) notFound();
     throw error;
   }
-  const leadAtImpact = swing.events.find((e) => e.name === 'impact')?.leadPct;
+  // Start the viewer's GET while the page's scripts load; the client's SWR fetch picks up the preloaded answer.
+  preload(`/api/swings/${swing.id}`, { as: 'fetch', crossOrigin: 'anonymous' });
   // The lead (target-side) foot of a right-handed golfer is the left one.
   const handedness = swing.recording.parameters.handedness;
   const leadFoot = handedness === 'right' ? 'left' : handedness === 'left' ? 'right' : null;
@@ -60,29 +50,19 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
       </nav>
       <PageHeader
         title={`Swing ${swing.index}`}
-        subtitle={`${swing.recording.filename}, ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s on the recording's time axis`}
-        action={swing.stale ? <Badge tone="notice">Kept for its manual corrections; not found by the last processing</Badge> : undefined}
+        subtitle={`${swing.athlete.displayName} · ${swing.recording.filename}, ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s on the recording's time axis${leadFoot ? ` · lead foot ${leadFoot} (${handedness}-handed)` : ''}`}
+        action={
+          <span className="flex gap-2">
+            {swing.hidden && <Badge tone="neutral">Marked as not a swing</Badge>}
+            {swing.stale && <Badge tone="notice">Kept for its manual corrections; not found by the last processing</Badge>}
+            {viewer.role === 'student' && <Badge>Read-only</Badge>}
+          </span>
+        }
       />
-      <div className="space-y-6">
+      <div className="space-y-4">
         <CoachingCaution />
         {swing.athlete.dateOfBirth && isMinor(swing.athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={swing.athlete.dateOfBirth} />}
-        <div className="grid gap-4 sm:grid-cols-3">
-          <Fact label="Tempo (backswing : downswing)" value={formatTempo(swing.tempoRatio)} testId="swing-tempo" />
-          <Fact label="Lead % at impact" value={leadAtImpact === null || leadAtImpact === undefined ? '—' : `${leadAtImpact.toFixed(1)} %`} />
-          <Fact label="Impact time from" value={impactSourceLabels[swing.impactSource]} testId="swing-impact-source" />
-        </div>
-        <Card title="Phases">
-          <PhaseTable phases={swing.phases} />
-          <p className="mt-3 text-xs text-ink-muted">
-            COP = centre of pressure of both feet in the stance frame; path is its travelled length, speed its fastest
-            movement. Lead % is the share of the total load on the lead (target-side) foot
-            {leadFoot ? `, here the ${leadFoot} foot (${handedness}-handed)` : ''}. Tempo = (top − address) /
-            (impact − top).
-          </p>
-        </Card>
-        <Card title="Values at the events">
-          <EventTable events={swing.events} />
-        </Card>
+        <SwingWorkbench swingId={swing.id} initial={swing} />
         <Card title="Processing">
           <ProcessingParameters parameters={swing.recording.parameters} algorithmVersion={swing.recording.algorithmVersion} />
         </Card>

@@ -1,0 +1,41 @@
+// Writes to /api/swings/:id and its annotations, through lib/fetcher.ts (zod-checked answers, ApiError with the
+// server's field errors on 422).
+import { ApiError, sendJson } from '@/lib/fetcher';
+import { errorResponseSchema } from '@/lib/validations/responses';
+import type { EventName } from '@/lib/signal/types';
+import { annotationResponseSchema, swingViewResponseSchema, type Annotation, type SwingLabels } from './swing-schemas';
+
+export const swingUrl = (id: number) => `/api/swings/${id}`;
+
+export interface SwingPatch {
+  events?: Partial<Record<EventName, number>>;
+  resetEvents?: EventName[] | 'all';
+  labels?: Partial<SwingLabels>;
+}
+
+export const patchSwing = (id: number, body: SwingPatch) => sendJson(swingUrl(id), 'PATCH', body, swingViewResponseSchema);
+
+export type AnnotationInput = Pick<Annotation, 'body' | 'visibility'> & { timeS?: number | null; phase?: Annotation['phase'] };
+
+export const createAnnotation = (swingId: number, body: AnnotationInput) =>
+  sendJson(`${swingUrl(swingId)}/annotations`, 'POST', body, annotationResponseSchema);
+
+export const updateAnnotation = (swingId: number, annotationId: number, body: Partial<AnnotationInput>) =>
+  sendJson(`${swingUrl(swingId)}/annotations/${annotationId}`, 'PATCH', body, annotationResponseSchema);
+
+/** DELETE answers 204 with no body; lib/fetcher.ts only sends POST/PATCH, so the error mapping is repeated here. */
+export async function deleteAnnotation(swingId: number, annotationId: number): Promise<void> {
+  const response = await fetch(`${swingUrl(swingId)}/annotations/${annotationId}`, { method: 'DELETE', credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  if (response.ok) return;
+  const parsed = errorResponseSchema.safeParse(await response.json().catch(() => null));
+  throw new ApiError(response.status, parsed.success ? parsed.data.error.message : `Delete failed with status ${response.status}.`, parsed.success ? parsed.data.error.fieldErrors : {});
+}
+
+/** One line for an error: the server's message plus its field errors ("events.top: ..."). */
+export function errorText(error: unknown): string {
+  if (error instanceof ApiError) {
+    const fields = Object.entries(error.fieldErrors).map(([field, msgs]) => `${field}: ${msgs.join(' ')}`);
+    return fields.length ? `${error.message} ${fields.join('; ')}` : error.message;
+  }
+  return error instanceof Error ? error.message : 'Something went wrong.';
+}

@@ -1,0 +1,174 @@
+import { randomBytes } from 'node:crypto';
+import { Readable } from 'node:stream';
+import knex, { type Knex } from 'knex';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '@/db/demo/seed-demo';
+import { knexConfig } from '@/knexfile';
+import { analyzeOptionsOf, profileOf, recordingOptionsSchema, resolveLayout } from '@/lib/recordings/options';
+import { readStoredRecording } from '@/lib/recordings/stored-text';
+import { analyzeRecording, DISTRACTORS, generateSession, roundAnalysis } from '@/lib/signal';
+import { findFreePort } from '@/scripts/lib/free-port';
+import { processGroupMembers, startAppServer, type AppServer } from './support/app-server';
+import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
+import { signedIn, type HttpSession } from './support/http-session';
+import { serverStore, upload } from './support/recordings-http';
+
+// Kill test (issue 4): the app server process dies (SIGKILL to its whole process group: no clean-up, no graceful
+// shutdown) while its in-app worker processes a long recording. The job must be neither lost nor stuck: once its
+// heartbeat is older than JOB_LOCK_TIMEOUT_S, the worker of the restarted server claims it again and the recording
+// ends ready, with the same swings a direct analysis of the file gives.
+//
+// Why a scratch database and not the harness's own: scripts/test.ts starts its server without WORKER_ENABLED, so
+// that server runs a worker (the default is true) that polls the `stanceline` database every second, and the other
+// HTTP tests rely on it. On that database its worker would claim our job before, or instead of, ours, and the kill
+// would hit a server that was not processing. So this test starts BOTH servers (the one it kills and the one that
+// restarts) itself, on a fresh database of the same MariaDB (stanceline_k<random>, migrated and seeded with the demo;
+// the app user may create stanceline_* databases), with the same built app, the same secret and the same raw-file
+// store (keys are random UUIDs, so nothing collides). The harness's server is left untouched and never sees the job.
+
+const env = e2eEnv();
+const LOCK_TIMEOUT_S = 5; // the smallest lib/env.ts accepts; the restarted worker takes the job over after it
+
+// 60 minutes at 100 Hz, 8 sensors a foot, 60 swings with walking, stepping, waggles, re-teeing and a lifted foot
+// between them (about 36 MB): processing takes seconds, long enough to be killed in the middle of it.
+const lesson = generateSession({
+  seed: 404,
+  sampleRateHz: 100,
+  sensorsPerFoot: 8,
+  units: 'N',
+  handedness: 'right',
+  stanceWidthMm: 400,
+  swings: 60,
+  withMarker: false,
+  distractors: DISTRACTORS,
+  durationS: 3600,
+});
+const lessonCsv = lesson.csv();
+
+let admin: Knex;
+let db: Knex;
+let scratchName = '';
+let scratchUrl = '';
+const servers: AppServer[] = [];
+let storageKey: string | null = null;
+
+function appEnv(port: number): NodeJS.ProcessEnv {
+  return {
+    ...process.env, // NEXTAUTH_SECRET, the S3 fake (or STORAGE_DIR) of the harness
+    DATABASE_URL: scratchUrl,
+    NEXTAUTH_URL: `http://127.0.0.1:${port}`,
+    PORT: String(port),
+    WORKER_ENABLED: 'true',
+    WORKER_POLL_MS: '200',
+    JOB_LOCK_TIMEOUT_S: String(LOCK_TIMEOUT_S),
+  };
+}
+
+async function startServer(port: number): Promise<AppServer> {
+  const server = await startAppServer({ port, env: appEnv(port) });
+  servers.push(server);
+  return server;
+}
+
+async function until<T>(what: string, probe: () => Promise<T | null | undefined | false>, timeoutMs: number, server?: AppServer): Promise<T> {
+  const end = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await probe();
+    if (value) return value;
+    if (server?.hasExited()) throw new Error(`the server exited while waiting for ${what}:\n${server.output()}`);
+    if (Date.now() > end) throw new Error(`timed out after ${timeoutMs} ms waiting for ${what}${server ? `\nserver output:\n${server.output()}` : ''}`);
+    await new Promise((resolve) => setTimeout(resolve, 50));
+  }
+}
+
+async function recordingStatus(session: HttpSession, id: number): Promise<{ status: string; body: any }> {
+  const { status, body } = await session.json(`/api/recordings/${id}`);
+  expect(status).toBe(200);
+  return { status: (body as { status: string }).status, body };
+}
+
+beforeAll(async () => {
+  const base = new URL(env.DATABASE_URL);
+  scratchName = `stanceline_k${randomBytes(4).toString('hex')}`;
+  admin = knex(knexConfig(base.href));
+  await admin.raw('CREATE DATABASE ?? CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci', [scratchName]);
+  const url = new URL(base.href);
+  url.pathname = `/${scratchName}`;
+  scratchUrl = url.href;
+  db = knex(knexConfig(scratchUrl));
+  await db.migrate.latest();
+  await seedDemo(db);
+});
+
+afterAll(async () => {
+  // Everything this file started, also when a test failed half-way: servers, the raw file, the scratch database.
+  for (const server of servers) await server.stop().catch((error: unknown) => console.error('stopping a test server:', error));
+  if (storageKey) await serverStore()?.remove(storageKey).catch(() => undefined);
+  await db?.destroy();
+  if (scratchName) await admin?.raw('DROP DATABASE IF EXISTS ??', [scratchName]);
+  await admin?.destroy();
+});
+
+describe('the app server killed while it processes a recording', () => {
+  it('leaves a job that the restarted server finishes: ready, with the swings of a direct analysis', { timeout: 300_000 }, async () => {
+    const port = await findFreePort();
+    const first = await startServer(port);
+    const coach = await signedIn(first.url, DEMO.coach, DEMO_PASSWORD);
+
+    // Demo athlete 3 (coach@'s roster) and that athlete's session 6, db/demo/scenario.ts.
+    const res = await upload(coach, { athleteId: 3, sessionId: 6, handedness: 'right', stanceWidthMm: 400 }, [{ name: 'long-lesson.csv', content: lessonCsv }]);
+    expect(res.status).toBe(202);
+    expect(res.body.recordings[0]).toMatchObject({ filename: 'long-lesson.csv', status: 'received', duplicate: false });
+    const id: number = res.body.recordings[0].id;
+    storageKey = (await db('recordings').where({ id }).first('storage_key')).storage_key;
+
+    // The API must say `processing` (the worker claimed the job) before the kill.
+    await until('GET /api/recordings/:id to say processing', async () => {
+      const { status } = await recordingStatus(coach, id);
+      if (status === 'ready' || status === 'failed') throw new Error(`recording ${id} was ${status} before the kill; the file is too short to kill the server mid-job`);
+      return status === 'processing';
+    }, 60_000, first);
+
+    // Crash: SIGKILL to the whole group, then nothing of it may be left (no orphaned next-server child).
+    await first.killGroup('SIGKILL');
+    expect(first.hasExited()).toBe(true);
+    expect(processGroupMembers(first.pid)).toEqual([]);
+
+    // Not lost: the recording still waits for processing, its job is still the dead worker's running attempt 1,
+    // and no result row was written (the results transaction, if it had begun, was rolled back by the server).
+    const killedJob = await db('processing_jobs').where({ recording_id: id }).first('state', 'attempts', 'locked_by', 'finished_at');
+    expect(killedJob).toMatchObject({ state: 'running', attempts: 1, finished_at: null });
+    expect(String(killedJob.locked_by)).toContain(`:${first.pid}:`); // worker ids are host:pid:random (lib/jobs/worker.ts)
+    const killedRecording = await db('recordings').where({ id }).first('status');
+    expect(['processing', 'received']).toContain(killedRecording.status);
+    expect(await db('swings').where({ recording_id: id }).count({ n: '*' })).toEqual([{ n: 0 }]);
+
+    // Restart on the same address; the session cookie (a JWT signed with the same secret) still works.
+    const second = await startServer(port);
+    const during = await recordingStatus(coach, id);
+    expect(['received', 'processing', 'ready']).toContain(during.status); // never failed, never unknown
+
+    // Never stuck: the new worker claims the job once the dead one's heartbeat is LOCK_TIMEOUT_S old.
+    const done = await until('the recording to reach ready or failed after the restart', async () => {
+      const { status, body } = await recordingStatus(coach, id);
+      return status === 'ready' || status === 'failed' ? body : null;
+    }, 180_000, second);
+    expect(done.error).toBeNull();
+    expect(done.status).toBe('ready');
+
+    const job = await db('processing_jobs').where({ recording_id: id }).first('state', 'attempts', 'locked_by', 'last_error');
+    expect(job).toMatchObject({ state: 'done', attempts: 2, locked_by: null, last_error: null }); // the killed attempt + the one that finished
+
+    // The same file through the signal core directly, with the options the upload stored (the worker's own path:
+    // lib/jobs/process-recording.ts), rounded as the API rounds event times (3 decimals, lib/recordings/views.ts).
+    const row = await db('recordings').where({ id }).first('options');
+    const options = recordingOptionsSchema.parse(typeof row.options === 'string' ? JSON.parse(row.options) : row.options);
+    const raw = await readStoredRecording(Readable.from([Buffer.from(lessonCsv)]), profileOf(options));
+    const direct = roundAnalysis(analyzeRecording(raw, resolveLayout(options, raw.metadata), analyzeOptionsOf(options)).result);
+    expect(direct.swings).toHaveLength(lesson.truth.swings.length); // the generator's 60 swings, all found
+    expect(done.swings.map((s: any) => ({ index: s.index, events: s.events, impactSource: s.impactSource }))).toEqual(
+      direct.swings.map((s) => ({ index: s.index, events: s.events, impactSource: s.impact_source })),
+    );
+    expect(await db('swings').where({ recording_id: id }).count({ n: '*' })).toEqual([{ n: direct.swings.length }]);
+  });
+});

@@ -1,8 +1,9 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
-// Two projects: `signal` is pure computation (no database); `integration` gets a throwaway MariaDB
-// from tests/setup/global-db.ts (started once per run, its own data dir and port, stopped at the end).
+// Three projects: `signal` is pure computation (no database); `charts` the D3 chart helpers and components;
+// `integration` gets a throwaway MariaDB from tests/setup/global-db.ts (started once per run, its own data dir and
+// port, stopped at the end). Timeouts are generous safety limits for a loaded 2-core machine, not speed checks.
 export default defineConfig({
   resolve: {
     tsconfigPaths: true,
@@ -17,6 +18,7 @@ export default defineConfig({
           name: 'signal',
           include: ['tests/signal/**/*.test.ts'],
           environment: 'node',
+          testTimeout: 60_000,
         },
       },
       {
@@ -25,6 +27,7 @@ export default defineConfig({
           name: 'charts',
           include: ['tests/charts/**/*.test.ts', 'tests/charts/**/*.test.tsx'],
           environment: 'node',
+          testTimeout: 60_000,
         },
       },
       {

@@ -9,8 +9,15 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
     { href: '/roster', label: 'Roster' },
     { href: '/athletes/new', label: 'Add athlete' },
     { href: '/upload', label: 'Upload' },
+    { href: '/targets', label: 'Targets' },
+    { href: '/bands', label: 'Bands' },
+    { href: '/drills', label: 'Drills' },
   ],
-  student: [{ href: '/', label: 'My profile' }],
+  student: [
+    { href: '/', label: 'My profile' },
+    { href: '/drills', label: 'My drills' },
+    { href: '/targets', label: 'My targets' },
+  ],
   admin: [
     { href: '/', label: 'Overview' },
     { href: '/users', label: 'Accounts' },

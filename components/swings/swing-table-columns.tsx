@@ -2,6 +2,7 @@ import Link from 'next/link';
 import type { ColumnDef, FilterFn } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
 import { formatNumber, formatTempo } from '@/components/recordings/format';
+import { ScoreCell } from '@/components/targets/score-cell';
 
 export type SwingRow = {
   id: number;
@@ -59,5 +60,6 @@ export const swingColumns: ColumnDef<SwingRow>[] = [
   { id: 'impact', header: 'Impact (s)', accessorFn: (r) => r.impactS ?? undefined, sortUndefined: 'last', enableColumnFilter: false, cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 3) },
   { id: 'leadPct', header: 'Lead % at impact', accessorFn: (r) => r.leadPctAtImpact ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 1, ' %') },
   { id: 'tempo', header: 'Tempo', accessorFn: (r) => r.tempoRatio ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatTempo(getValue<number | undefined>()) },
+  { id: 'targetScore', header: 'Target checks', accessorFn: (r) => r.id, enableSorting: false, enableColumnFilter: false, cell: ({ row }) => <ScoreCell swingId={row.original.id} /> },
   { id: 'impactSource', header: 'Impact from', accessorFn: (r) => r.impactSource, enableColumnFilter: false, cell: ({ getValue }) => (getValue<string>() === 'marker' ? 'Marker' : 'Pressure') },
 ];

@@ -22,6 +22,9 @@ import { errorText, patchSwing, swingUrl } from './swing-api';
 import { swingViewResponseSchema, type SwingDetail, type SwingView } from './swing-schemas';
 import { SwingFacts } from './swing-facts';
 import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries } from './swing-view-model';
+import { BandPicker } from '@/components/bands/band-picker';
+import { useBandOverlay } from '@/components/bands/band-overlay';
+import { ScorePanel } from '@/components/targets/score-panel';
 
 const fetchSwing = fetchJson(swingViewResponseSchema);
 
@@ -88,6 +91,8 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
   const [editError, setEditError] = useState<string | null>(null);
   const [overlayId, setOverlayId] = useState<number | null>(null);
   const { overlay, loading: overlayLoading, error: overlayError } = useOverlay(overlayId);
+  const [bandId, setBandId] = useState<number | null>(null);
+  const { band: leadBand, loading: bandLoading, error: bandError } = useBandOverlay(bandId);
 
   const moved = useMemo(() => (pending && saved ? movedEvents(saved, pending) : {}), [pending, saved]);
   const onCursorChange = useCallback((t: number) => cursor.set(t), [cursor]);
@@ -153,6 +158,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
           stanceWidthMm={swing.stanceWidthMm}
           sensorFrames={frames}
           overlay={overlay}
+          leadBand={leadBand}
           readOnly={!canEdit}
           onEventsChange={canEdit ? onEventsChange : undefined}
           onCursorChange={onCursorChange}
@@ -160,13 +166,20 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
           initialZoom={jumped ? 'window' : undefined}
           timeZero={timeZero}
           actions={
-            <OverlayPicker self={swing.id} options={swing.siblings.sameAthlete} value={overlayId} onChange={setOverlayId} loading={overlayLoading} />
+            <span className="flex flex-wrap items-center gap-3">
+              <OverlayPicker self={swing.id} options={swing.siblings.sameAthlete} value={overlayId} onChange={setOverlayId} loading={overlayLoading} />
+              {canEdit && <BandPicker value={bandId} onChange={setBandId} loading={bandLoading} />}
+            </span>
           }
         />
       ) : (
         <p className="rounded-md border border-surface-line bg-surface px-4 py-3 text-sm text-ink-muted">This swing has no stored traces to draw (it lacks an event or its series).</p>
       )}
       {overlayError != null && <p role="alert" className="text-sm text-danger">Could not load the second swing: {errorText(overlayError)}</p>}
+      {bandError != null && <p role="alert" className="text-sm text-danger">Could not load the band: {errorText(bandError)}</p>}
+      <Card title="Against the target">
+        <ScorePanel swingId={swing.id} bandId={bandId} />
+      </Card>
       <div className={canEdit ? 'grid gap-3 lg:grid-cols-2' : 'space-y-3'}>
         <Card title={canEdit ? 'Notes' : 'Your coach’s notes'}>
           <MemoAnnotationList swingId={swing.id} annotations={annotations} events={saved} timeZero={timeZero} canEdit={canEdit} onChanged={refresh} />

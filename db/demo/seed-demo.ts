@@ -2,10 +2,16 @@
 // ids inside one transaction, so running it twice gives identical rows.
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
+import { seedDemoDrills } from './drills';
+import { seedDemoTargets } from './targets';
 import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS } from './scenario';
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'drill_assignments',
+  'drills',
+  'bands',
+  'targets',
   'swing_annotations',
   'swing_event_corrections',
   'swing_labels',
@@ -68,6 +74,8 @@ export async function seedDemo(knex: Knex): Promise<void> {
         notes: session.notes,
       })),
     );
+    await seedDemoTargets(trx, DEMO_ACADEMY.id);
+    await seedDemoDrills(trx, DEMO_ACADEMY.id);
   });
 }
 

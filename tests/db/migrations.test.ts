@@ -23,6 +23,11 @@ const APP_TABLES = [
   'swing_labels',
   'swing_event_corrections',
   'swing_annotations',
+  // issue 6: targets, reference bands, drills
+  'targets',
+  'bands',
+  'drills',
+  'drill_assignments',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 

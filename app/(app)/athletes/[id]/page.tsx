@@ -26,7 +26,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         title={athlete.displayName}
         subtitle="Player profile"
         action={
-          viewer.role === 'coach' ? (
+          <div className="flex gap-2">
+            <Link href={`/athletes/${athlete.id}/progress`} className={buttonClass('secondary')}>
+              Progress
+            </Link>
+            <Link href={`/athletes/${athlete.id}/compare`} className={buttonClass('secondary')}>
+              Compare sets
+            </Link>
+            {viewer.role === 'coach' && (
             <div className="flex gap-2">
               <Link href={`/upload?athlete=${athlete.id}`} className={buttonClass('primary')}>
                 Upload recordings
@@ -35,7 +42,8 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
                 Edit profile
               </Link>
             </div>
-          ) : undefined
+            )}
+          </div>
         }
       />
       <div className="space-y-6">

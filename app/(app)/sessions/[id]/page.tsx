@@ -3,10 +3,11 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
+import { DrillReport } from '@/components/drills/drill-report';
+import { Card, PageHeader } from '@/components/ui/card';
 import { SessionRecordingsPanel } from '@/components/recordings/session-recordings-panel';
 import { Badge } from '@/components/ui/badge';
 import { buttonClass } from '@/components/ui/button';
-import { PageHeader } from '@/components/ui/card';
 import { contextLabels, formatDate } from '@/components/ui/format';
 import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
@@ -57,6 +58,9 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
         <CoachingCaution />
         {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
         <SessionRecordingsPanel sessionId={view.session.id} initial={view} />
+        <Card title="Drills before this session">
+          <DrillReport sessionId={view.session.id} />
+        </Card>
       </div>
     </>
   );

@@ -1,0 +1,106 @@
+'use client';
+// Two sets of one athlete's swings side by side (GET /api/athletes/:id/compare): a strip plot per chosen metric,
+// the difference of means with its 95 % Welch interval, and the mean lead % curves with their bands.
+import { useState } from 'react';
+import useSWR from 'swr';
+import { inputClass } from '@/components/ui/field';
+import { fetchJson } from '@/lib/fetcher';
+import { compareResponseSchema, type CompareResponse } from '@/components/targets/api-schemas';
+import { MeanCurves } from './mean-curves';
+import { METRICS, metricLabel } from './metrics';
+import { StripPlot } from './strip-plot';
+
+const fetchCompare = fetchJson(compareResponseSchema);
+const fmt = (v: number | null | undefined, d = 2) => (v == null || !Number.isFinite(v) ? '—' : v.toFixed(d));
+const monthLabel = (m: string) => new Intl.DateTimeFormat('en-GB', { month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${m}-01T00:00:00Z`));
+
+export function setOptions(months: string[]) {
+  return [
+    { value: 'context:practice', label: 'Practice sessions' },
+    { value: 'context:on-course', label: 'On-course sessions' },
+    { value: 'context:lesson', label: 'Lessons' },
+    ...months.map((m) => ({ value: `month:${m}`, label: monthLabel(m) })),
+  ];
+}
+
+function curveOf(set: CompareResponse['a']) {
+  const mc = set.meanCurve;
+  const c = mc?.curves?.leadPct;
+  if (!mc?.axis || !c) return null;
+  return { label: set.label, axis: mc.axis, curve: c };
+}
+
+export function CompareView({ athleteId, months }: { athleteId: number; months: string[] }) {
+  const options = setOptions(months);
+  const [a, setA] = useState(months.length >= 2 ? `month:${months[0]}` : 'context:practice');
+  const [b, setB] = useState(months.length >= 2 ? `month:${months[1]}` : 'context:on-course');
+  const [metrics, setMetrics] = useState<string[]>(['impact.leadPct', 'tempoRatio']);
+  const url = metrics.length && a !== b ? `/api/athletes/${athleteId}/compare?a=${encodeURIComponent(a)}&b=${encodeURIComponent(b)}&metrics=${metrics.map(encodeURIComponent).join(',')}` : null;
+  const { data, error, isLoading } = useSWR(url, fetchCompare, { revalidateOnFocus: false, keepPreviousData: true });
+
+  return (
+    <div className="space-y-5" data-testid="compare-view">
+      <div className="flex flex-wrap gap-4">
+        <label className="text-sm"><span className="block text-xs text-ink-muted">Set A (circles, solid)</span>
+          <select aria-label="Set A" className={`${inputClass} w-auto`} value={a} onChange={(e) => setA(e.target.value)}>{options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}</select>
+        </label>
+        <label className="text-sm"><span className="block text-xs text-ink-muted">Set B (triangles, dashed)</span>
+          <select aria-label="Set B" className={`${inputClass} w-auto`} value={b} onChange={(e) => setB(e.target.value)}>{options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}</select>
+        </label>
+        <fieldset className="text-sm">
+          <legend className="text-xs text-ink-muted">Metrics</legend>
+          <div className="flex max-w-2xl flex-wrap gap-x-3 gap-y-1">
+            {METRICS.map((m) => (
+              <label key={m.id} className="flex items-center gap-1 text-xs">
+                <input type="checkbox" checked={metrics.includes(m.id)} onChange={(e) => setMetrics(e.target.checked ? [...metrics, m.id] : metrics.filter((x) => x !== m.id))} /> {m.label}
+              </label>
+            ))}
+          </div>
+        </fieldset>
+      </div>
+      {a === b && <p className="text-sm text-ink-muted">Choose two different sets.</p>}
+      {metrics.length === 0 && <p className="text-sm text-ink-muted">Tick at least one metric.</p>}
+      {error && <p role="alert" className="text-sm text-danger">Could not compare: {error instanceof Error ? error.message : ''}</p>}
+      {isLoading && !data && <p className="text-sm text-ink-muted">Comparing…</p>}
+      {data && url && <CompareResult data={data} />}
+    </div>
+  );
+}
+
+function CompareResult({ data }: { data: CompareResponse }) {
+  const few = [data.a, data.b].filter((s) => s.n < 3);
+  return (
+    <div className="space-y-5">
+      {few.length > 0 && (
+        <p role="note" className="rounded-md border border-notice-line bg-notice-soft px-4 py-3 text-sm text-notice" data-testid="too-few">
+          {few.map((s) => `${s.label} has ${s.n} swing${s.n === 1 ? '' : 's'}`).join('; ')}: too few swings to say anything about a difference. Record more before reading these numbers.
+        </p>
+      )}
+      <p className="text-xs text-ink-muted">A = {data.a.label} (circles), B = {data.b.label} (triangles); the black bar is the set’s mean.</p>
+      <div className="grid gap-4 xl:grid-cols-2">
+        {data.differences.map((d) => (
+          <StripPlot key={d.metric} metric={d.metric} label={metricLabel(d.metric)} a={{ label: data.a.label, values: data.a.values[d.metric] ?? [] }} b={{ label: data.b.label, values: data.b.values[d.metric] ?? [] }} />
+        ))}
+      </div>
+      <table className="w-full text-left text-sm" data-testid="compare-differences">
+        <thead className="text-xs text-ink-muted">
+          <tr><th className="py-1 font-medium">Metric</th><th className="py-1 text-right font-medium">Mean A</th><th className="py-1 text-right font-medium">Mean B</th><th className="py-1 text-right font-medium">B − A</th><th className="py-1 text-right font-medium">95 % interval (Welch)</th><th className="py-1 pl-3 font-medium">Note</th></tr>
+        </thead>
+        <tbody>
+          {data.differences.map((d) => (
+            <tr key={d.metric} className="border-t border-surface-line">
+              <td className="py-1.5">{metricLabel(d.metric)}</td>
+              <td className="py-1.5 text-right tabular-nums">{fmt(d.meanA)}</td>
+              <td className="py-1.5 text-right tabular-nums">{fmt(d.meanB)}</td>
+              <td className="py-1.5 text-right tabular-nums">{fmt(d.diff)}</td>
+              <td className="py-1.5 text-right tabular-nums">{d.ci95 ? `${fmt(d.ci95[0])} to ${fmt(d.ci95[1])}` : '—'}</td>
+              <td className="py-1.5 pl-3 text-xs text-ink-muted">{d.note ?? (d.ci95 && d.ci95[0] <= 0 && d.ci95[1] >= 0 ? 'the interval includes 0: no clear difference' : '')}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="text-xs text-ink-muted">Difference B − A with Welch’s t interval (unequal variances). Swings of one player are not fully independent, so read the interval as a guide.</p>
+      {(curveOf(data.a) || curveOf(data.b)) && <MeanCurves a={curveOf(data.a)} b={curveOf(data.b)} />}
+    </div>
+  );
+}

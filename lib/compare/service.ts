@@ -1,0 +1,63 @@
+import 'server-only';
+import type { Viewer } from '@/lib/auth/viewer';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import { ForbiddenError, NotFoundError } from '@/lib/http';
+import { athleteAccess } from '@/lib/recordings/access';
+import { buildBand, BAND_CURVES, type BandData } from '@/lib/bands/build';
+import { loadSwingCurves } from '@/lib/bands/store';
+import { scoreSwing } from '@/lib/targets/score';
+import { targetForSwing } from '@/lib/targets/store';
+import { swingFacts } from '@/lib/targets/swing-facts';
+import type { ClubGroup, Target } from '@/lib/targets/types';
+import { compareSets } from './compare';
+import { progressBySession } from './progress';
+
+// The athlete's coach or the student themself; everyone else 403, unknown athlete 404.
+async function requireAthleteRead(viewer: Viewer, athleteId: number): Promise<void> {
+  const exists = await db('athletes').where({ id: athleteId }).first('id');
+  if (!exists) throw new NotFoundError('No athlete with this id.');
+  if (!(await athleteAccess(viewer, athleteId))) throw new ForbiddenError('This athlete is not one you see.');
+}
+
+function curvesJson(b: BandData) {
+  const out = (a: number[]) => a.map((v) => (Number.isFinite(v) ? v : null));
+  return {
+    axis: b.axis,
+    landmarks: b.landmarks,
+    curves: Object.fromEntries(BAND_CURVES.map((c) => [c, { mean: out(b.curves[c].mean), sd: out(b.curves[c].sd), lower: out(b.curves[c].lower), upper: out(b.curves[c].upper) }])),
+  };
+}
+
+/** Mean curve +- 1 SD of a set (null below 2 usable swings). */
+async function meanCurve(swingIds: number[]) {
+  if (swingIds.length < 2) return null;
+  const { usable } = await loadSwingCurves(swingIds);
+  return usable.length < 2 ? null : curvesJson(buildBand(usable, 1));
+}
+
+export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a: string; b: string; metrics: string[] }) {
+  await requireAthleteRead(viewer, athleteId);
+  const facts = await swingFacts({ athleteId });
+  const result = compareSets(facts, q.a, q.b, q.metrics);
+  const idsOf = (set: string) => facts.filter((s) => !s.hidden && (set.startsWith('context:') ? s.context === set.slice(8) : s.sessionDate.startsWith(`${set.slice(6)}-`))).map((s) => s.id);
+  const [ca, cb] = await Promise.all([meanCurve(idsOf(q.a)), meanCurve(idsOf(q.b))]);
+  return { a: { ...result.a, meanCurve: ca }, b: { ...result.b, meanCurve: cb }, differences: result.differences };
+}
+
+export async function progressForViewer(viewer: Viewer, athleteId: number, metrics: string[]) {
+  await requireAthleteRead(viewer, athleteId);
+  const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
+  const targets = new Map<ClubGroup, Target | null>();
+  for (const g of new Set(facts.map((f) => f.clubGroup))) targets.set(g, await targetForSwing(athleteId, viewer.academyId, g));
+  const rows = progressBySession(
+    sessions.map((s) => ({ id: Number(s.id), date: toIsoDate(s.session_date) ?? '', context: s.context })),
+    facts,
+    metrics,
+    (s) => {
+      const t = targets.get(s.clubGroup);
+      return t ? scoreSwing(t, s.values, s.tempoRatio).summary : null;
+    },
+  );
+  return { sessions: rows };
+}

@@ -1,0 +1,156 @@
+import 'server-only';
+import type { Viewer } from '@/lib/auth/viewer';
+import { db } from '@/lib/db/client';
+import { toIsoDate } from '@/lib/db/practice-sessions';
+import { ForbiddenError, NotFoundError } from '@/lib/http';
+import { athleteAccess, requireSessionAccess } from '@/lib/recordings/access';
+import { swingFacts } from '@/lib/targets/swing-facts';
+import type { DrillInput } from '@/lib/validations/drill';
+import { checkMoves, type CheckMove } from './report';
+import type { Drill, DrillAssignment } from './types';
+
+// A coach's own drill library and its assignments. A coach sees and edits their own drills and assigns them to
+// athletes on their roster; a student sees the drills assigned to them and may only mark practice done with a note.
+
+const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+
+function toDrill(row: Record<string, any>): Drill {
+  return { id: Number(row.id), name: row.name, steps: parse<string[]>(row.steps), addressesChecks: parse(row.addresses_checks), cautions: row.cautions, ownerUserId: Number(row.owner_user_id) };
+}
+
+async function studentAthleteId(viewer: Viewer): Promise<number | null> {
+  const row = await db('athletes').where({ user_id: viewer.id, academy_id: viewer.academyId }).first('id');
+  return row ? Number(row.id) : null;
+}
+
+export async function listDrills(viewer: Viewer): Promise<Drill[]> {
+  if (viewer.role === 'coach') return (await db('drills').where({ owner_user_id: viewer.id }).orderBy('id')).map(toDrill);
+  const athleteId = await studentAthleteId(viewer);
+  if (athleteId === null) return [];
+  const rows = await db('drills as d').join('drill_assignments as a', 'a.drill_id', 'd.id').where('a.athlete_id', athleteId).distinct('d.*').orderBy('d.id');
+  return rows.map(toDrill);
+}
+
+function drillColumns(input: Partial<DrillInput>): Record<string, unknown> {
+  const c: Record<string, unknown> = {};
+  if (input.name !== undefined) c.name = input.name;
+  if (input.steps !== undefined) c.steps = JSON.stringify(input.steps);
+  if (input.addressesChecks !== undefined) c.addresses_checks = JSON.stringify(input.addressesChecks);
+  if (input.cautions !== undefined) c.cautions = input.cautions;
+  return c;
+}
+
+export async function createDrill(viewer: Viewer, input: DrillInput): Promise<Drill> {
+  const [id] = await db('drills').insert({ ...drillColumns(input), academy_id: viewer.academyId, owner_user_id: viewer.id });
+  return toDrill(await db('drills').where({ id }).first());
+}
+
+async function ownDrill(viewer: Viewer, id: number): Promise<Record<string, any>> {
+  const row = await db('drills').where({ id }).first();
+  if (!row) throw new NotFoundError('No drill with this id.');
+  if (Number(row.owner_user_id) !== viewer.id) throw new ForbiddenError('This drill is in another coach’s library.');
+  return row;
+}
+
+export async function updateDrill(viewer: Viewer, id: number, input: Partial<DrillInput>): Promise<Drill> {
+  await ownDrill(viewer, id);
+  await db('drills').where({ id }).update({ ...drillColumns(input), updated_at: db.raw('NOW(3)') });
+  return toDrill(await db('drills').where({ id }).first());
+}
+
+export async function deleteDrill(viewer: Viewer, id: number): Promise<void> {
+  await ownDrill(viewer, id);
+  await db('drills').where({ id }).delete();
+}
+
+function toAssignment(row: Record<string, any>): DrillAssignment {
+  return {
+    id: Number(row.id),
+    drill: toDrill({ id: row.drill_id, name: row.name, steps: row.steps, addresses_checks: row.addresses_checks, cautions: row.cautions, owner_user_id: row.owner_user_id }),
+    athleteId: Number(row.athlete_id),
+    athleteName: row.display_name,
+    assignedBy: row.assigned_by === null ? null : Number(row.assigned_by),
+    assignedAt: toIsoDate(row.assigned_at) ?? '',
+    dueDate: toIsoDate(row.due_date) ?? '',
+    practiceDone: Boolean(row.practice_done),
+    doneAt: row.done_at ? new Date(row.done_at).toISOString() : null,
+    studentNote: row.student_note ?? null,
+  };
+}
+
+const assignmentQuery = () =>
+  db('drill_assignments as a')
+    .join('drills as d', 'd.id', 'a.drill_id')
+    .join('athletes as t', 't.id', 'a.athlete_id')
+    .select('a.*', 'd.name', 'd.steps', 'd.addresses_checks', 'd.cautions', 'd.owner_user_id', 't.display_name')
+    .orderBy([{ column: 'a.due_date', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
+
+export async function listAssignments(viewer: Viewer, athleteId?: number): Promise<DrillAssignment[]> {
+  const q = assignmentQuery();
+  if (viewer.role === 'coach') q.whereIn('a.athlete_id', db('coach_athletes').where({ coach_user_id: viewer.id }).select('athlete_id'));
+  else {
+    const own = await studentAthleteId(viewer);
+    if (own === null) return [];
+    q.where('a.athlete_id', own);
+  }
+  if (athleteId !== undefined) q.where('a.athlete_id', athleteId);
+  return (await q).map(toAssignment);
+}
+
+export async function assignDrill(viewer: Viewer, athleteId: number, drillId: number, dueDate: string, today: string): Promise<DrillAssignment> {
+  if ((await athleteAccess(viewer, athleteId)) !== 'coach') throw new ForbiddenError('This athlete is not on your roster, so you cannot assign drills to them.');
+  await ownDrill(viewer, drillId);
+  const [id] = await db('drill_assignments').insert({ drill_id: drillId, athlete_id: athleteId, assigned_by: viewer.id, assigned_at: today, due_date: dueDate });
+  return toAssignment(await assignmentQuery().where('a.id', id).first());
+}
+
+/** Student: own assignment, practiceDone + note only. Coach of the athlete: dueDate (and may also reset done). */
+export async function updateAssignment(viewer: Viewer, id: number, patch: { practiceDone?: boolean; studentNote?: string; dueDate?: string }): Promise<DrillAssignment> {
+  const row = await db('drill_assignments').where({ id }).first();
+  if (!row) throw new NotFoundError('No drill assignment with this id.');
+  const access = await athleteAccess(viewer, Number(row.athlete_id));
+  if (!access) throw new ForbiddenError('This drill was given to an athlete you do not see.');
+  const columns: Record<string, unknown> = {};
+  if (access === 'student') {
+    if (patch.dueDate !== undefined) throw new ForbiddenError('Only your coach can move the due date; you can mark practice done and add a note.');
+  } else {
+    if (patch.studentNote !== undefined) throw new ForbiddenError('The note is the student’s own.');
+    if (patch.practiceDone === true) throw new ForbiddenError('Only the student marks practice done.');
+  }
+  if (patch.practiceDone !== undefined) {
+    columns.practice_done = patch.practiceDone;
+    columns.done_at = patch.practiceDone ? db.raw('NOW(3)') : null;
+  }
+  if (patch.studentNote !== undefined) columns.student_note = patch.studentNote === '' ? null : patch.studentNote;
+  if (patch.dueDate !== undefined) columns.due_date = patch.dueDate;
+  await db('drill_assignments').where({ id }).update(columns);
+  return toAssignment(await assignmentQuery().where('a.id', id).first());
+}
+
+export interface DrillReport {
+  sessionId: number;
+  sessionDate: string;
+  assignments: { id: number; drill: Drill; assignedAt: string; dueDate: string; practiceDone: boolean; studentNote: string | null; checks: CheckMove[] }[];
+}
+
+/** Assignments given on or before the session's date, with the move of each check they address. */
+export async function drillReport(viewer: Viewer, sessionId: number): Promise<DrillReport> {
+  const { athleteId } = await requireSessionAccess(viewer, sessionId);
+  const session = await db('practice_sessions').where({ id: sessionId }).first('session_date');
+  const sessionDate = toIsoDate(session.session_date) ?? '';
+  const rows = (await assignmentQuery().where('a.athlete_id', athleteId)).map(toAssignment).filter((a) => a.assignedAt <= sessionDate);
+  const facts = rows.length > 0 ? await swingFacts({ athleteId }) : [];
+  return {
+    sessionId,
+    sessionDate,
+    assignments: rows.map((a) => ({
+      id: a.id,
+      drill: a.drill,
+      assignedAt: a.assignedAt,
+      dueDate: a.dueDate,
+      practiceDone: a.practiceDone,
+      studentNote: a.studentNote,
+      checks: checkMoves(a.drill.addressesChecks, facts, a.assignedAt, sessionDate),
+    })),
+  };
+}

@@ -24,14 +24,16 @@ export interface DemoRecording {
   durationS: number;
 }
 
-// Sessions of coach@ (Maren Solberg): Ada Fenwick's lesson and practice, Jonah Pelliker's lesson (left-handed),
-// Sunniva Ashdale's lesson. Session ids from scenario.ts.
+// Sessions of coach@ (Maren Solberg): Ada Fenwick's lesson, practice and on-course round (so practice can be compared
+// with play on the course), Jonah Pelliker's lesson (left-handed), Sunniva Ashdale's lesson. Session ids from
+// scenario.ts.
 export const DEMO_RECORDINGS: readonly DemoRecording[] = [
   { id: 1, sessionId: 1, athleteId: 1, filename: 'ada-lesson-block-1.csv', seed: 101, swings: 6, durationS: 150 },
   { id: 2, sessionId: 1, athleteId: 1, filename: 'ada-lesson-block-2.csv', seed: 102, swings: 5, durationS: 120 },
   { id: 3, sessionId: 2, athleteId: 1, filename: 'ada-step-drill.csv', seed: 103, swings: 8, durationS: 180 },
   { id: 4, sessionId: 4, athleteId: 2, filename: 'jonah-lesson.csv', seed: 104, swings: 6, durationS: 150 },
   { id: 5, sessionId: 6, athleteId: 3, filename: 'sunniva-narrow-stance.csv', seed: 105, swings: 5, durationS: 120 },
+  { id: 6, sessionId: 3, athleteId: 1, filename: 'ada-front-nine.csv', seed: 106, swings: 6, durationS: 180 },
 ];
 
 /** Adds the demo recordings to a freshly seeded demo database and processes them. Returns how many ended ready. */

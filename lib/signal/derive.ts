@@ -4,6 +4,7 @@ import { SignalInputError } from './errors';
 import { DEFAULT_CUTOFF_HZ, DEFAULT_FILTER_ORDER, zeroLagLowpass, zeroLagMinSamples } from './filter';
 import { savgolDerivative } from './savgol';
 import type { DerivedSeries, Handedness, Region, SensorLayout, SensorSpec, UniformRecording } from './types';
+export { toStanceFrame } from './stance-frame';
 
 export const DEFAULT_DERIVE = {
   cutoffHz: DEFAULT_CUTOFF_HZ,
@@ -53,17 +54,6 @@ export function copOf(forces: ArrayLike<number>, xs: ArrayLike<number>, ys: Arra
     my += forces[i] * ys[i];
   }
   return total > 0 ? { x: mx / total, y: my / total, total } : { x: NaN, y: NaN, total };
-}
-
-/**
- * Foot-frame point (x medial, y from the heel) to the stance frame (X toward the target, lead centreline at +w/2,
- * Y from mid-foot). The lead foot's medial side faces the trail foot, i.e. -X; the trail foot's faces +X.
- */
-export function toStanceFrame(xMm: number, yMm: number, isLead: boolean, stanceWidthMm: number, footLengthMm: number) {
-  return {
-    x: isLead ? stanceWidthMm / 2 - xMm : -stanceWidthMm / 2 + xMm,
-    y: yMm - footLengthMm / 2,
-  };
 }
 
 function median(x: Float64Array): number {

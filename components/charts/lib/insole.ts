@@ -2,7 +2,7 @@
 // centreline, +y toward the toes, +x medial), as fractions of the foot length; then placed in the stance frame
 // with the same transform the signal core uses for the COP.
 import { line, curveCatmullRomClosed, type ScaleLinear } from 'd3';
-import { toStanceFrame } from '@/lib/signal/derive';
+import { toStanceFrame } from '@/lib/signal/stance-frame';
 import type { Foot, Handedness, SensorLayout } from '@/lib/signal/types';
 
 // Heel narrow and round, a slight medial arch waist, widest across the ball (~70 % of the length), toe box rounded.

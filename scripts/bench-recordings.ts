@@ -4,7 +4,6 @@
 // POST /api/recordings, waits for `ready`, reads the server's peak RSS (VmHWM) and loads GET /api/recordings/:id
 // with autocannon (50 connections, 10 s). Everything it started is stopped again.
 import { execFile } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
 import { createWriteStream, mkdtempSync, openAsBlob, readFileSync, rmSync, statSync } from 'node:fs';
 import { once } from 'node:events';
 import { tmpdir } from 'node:os';
@@ -12,11 +11,7 @@ import { join } from 'node:path';
 import { promisify } from 'node:util';
 import { DISTRACTORS, generateSession } from '../lib/signal/synthetic';
 import { signedIn } from '../tests/http/support/http-session';
-import { migrateLatest, seedDemoAt } from './lib/database';
-import { findFreePort } from './lib/free-port';
-import { startLocalFakes } from './lib/local-fakes';
-import { buildNeededBecause, nextEnv, runNextBuild, startNextServer } from './lib/next-server';
-import { startThrowawayMariadb } from './lib/throwaway-mariadb';
+import { startThrowawayApp } from './lib/throwaway-app';
 
 const TARGET = { readyS: 5, rssMb: 600 }; // ready target from the issue; the RSS bound is this project's own budget
 const root = process.cwd();
@@ -39,29 +34,10 @@ async function writeLesson(path: string): Promise<number> {
 
 async function main(): Promise<void> {
   const dir = mkdtempSync(join(tmpdir(), 'stanceline-bench-rec-'));
-  const database = await startThrowawayMariadb(root);
-  const fakes = await startLocalFakes(join(database.config.dir, 'fakes'));
-  let stopServer = async () => undefined as void;
+  console.log(`# Stanceline recordings benchmark (node ${process.version}, ${new Date().toISOString()})`);
+  const app = await startThrowawayApp(root);
+  const { server, fakes } = app;
   try {
-    console.log(`# Stanceline recordings benchmark (node ${process.version}, ${new Date().toISOString()})`);
-    await migrateLatest(database.databaseUrl);
-    const port = await findFreePort();
-    const env = nextEnv({
-      STORAGE_DIR: join(database.config.dir, 'uploads'),
-      DATABASE_URL: database.databaseUrl,
-      NEXTAUTH_SECRET: randomBytes(32).toString('hex'),
-      ...fakes.env,
-      NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-      PORT: String(port),
-    });
-    const reason = buildNeededBecause(root);
-    if (reason) {
-      console.log(`building the app (${reason}) ...`);
-      if ((await runNextBuild(root, env)) !== 0) throw new Error('next build failed');
-    }
-    await seedDemoAt(database.databaseUrl);
-    const server = await startNextServer(root, { port, env });
-    stopServer = () => server.stop();
     const pid = server.child.pid!;
     console.log(`server pid ${pid} at ${server.url}; raw files in ${fakes.names.join(', ') || 'STORAGE_DIR'}`);
     console.log(`server peak RSS at start: ${peakRssMb(pid).toFixed(0)} MB`);
@@ -113,9 +89,7 @@ async function main(): Promise<void> {
     console.log(`latency p50 / p99:       ${result.latency.p50} / ${result.latency.p99} ms`);
     console.log(`server peak RSS after:   ${peakRssMb(pid).toFixed(0)} MB`);
   } finally {
-    await stopServer();
-    await fakes.stop();
-    await database.dispose();
+    await app.stop();
     rmSync(dir, { recursive: true, force: true });
   }
 }

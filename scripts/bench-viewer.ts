@@ -7,17 +7,11 @@
 // - frame time while scrubbing the whole visible swing with the keyboard: one ArrowRight per animation frame, the
 //   requestAnimationFrame timestamps' deltas (median, p95), with chromium's frame-rate limit off so a frame lasts as
 //   long as its work rather than the display's 16.7 ms; plus the main-thread time of each key's render.
-import { randomBytes } from 'node:crypto';
-import { join } from 'node:path';
 import { chromium } from 'playwright-core';
 import { DEMO_ATHLETES } from '../db/demo/scenario';
 import { generateSession } from '../lib/signal/synthetic';
 import { signedIn } from '../tests/http/support/http-session';
-import { migrateLatest, seedDemoAt } from './lib/database';
-import { findFreePort } from './lib/free-port';
-import { startLocalFakes } from './lib/local-fakes';
-import { buildNeededBecause, nextEnv, runNextBuild, startNextServer } from './lib/next-server';
-import { startThrowawayMariadb } from './lib/throwaway-mariadb';
+import { startThrowawayApp } from './lib/throwaway-app';
 
 const TARGET = { lcpMs: 1000, p95FrameMs: 16 }; // from the issue
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -92,33 +86,11 @@ const SCRUB_SCRIPT = `new Promise(function (resolve) {
 async function main(): Promise<void> {
   console.log(`# Stanceline swing viewer benchmark (node ${process.version}, ${new Date().toISOString()})`);
   if (process.env.BENCH_BASE_URL) return measure(process.env.BENCH_BASE_URL.replace(/\/$/, ''));
-  const database = await startThrowawayMariadb(root);
-  const fakes = await startLocalFakes(join(database.config.dir, 'fakes'));
-  let stopServer = async () => undefined as void;
+  const app = await startThrowawayApp(root);
   try {
-    await migrateLatest(database.databaseUrl);
-    const port = await findFreePort();
-    const env = nextEnv({
-      STORAGE_DIR: join(database.config.dir, 'uploads'),
-      DATABASE_URL: database.databaseUrl,
-      NEXTAUTH_SECRET: randomBytes(32).toString('hex'),
-      ...fakes.env,
-      NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-      PORT: String(port),
-    });
-    const reason = buildNeededBecause(root);
-    if (reason) {
-      console.log(`building the app (${reason}) ...`);
-      if ((await runNextBuild(root, env)) !== 0) throw new Error('next build failed');
-    }
-    await seedDemoAt(database.databaseUrl);
-    const server = await startNextServer(root, { port, env });
-    stopServer = () => server.stop();
-    await measure(server.url);
+    await measure(app.server.url);
   } finally {
-    await stopServer();
-    await fakes.stop();
-    await database.dispose();
+    await app.stop();
   }
 }
 

@@ -8,7 +8,7 @@ import { swingViewResponseSchema, type SwingView } from '@/components/swings/swi
 import { DEMO, DEMO_PASSWORD, e2eEnv } from '../http/support/env';
 import { signedIn, type HttpSession } from '../http/support/http-session';
 import { serverDb, settled, upload } from '../http/support/recordings-http';
-import { launchBrowser, screenshotPath, type Browser } from './support/browser';
+import { launchBrowser, screenshotFailure, screenshotPath, signInAt, type Browser } from './support/browser';
 
 // The swing viewer in chromium, coach then student: the coach drags the top marker by 50 ms, saves, reloads and
 // finds it kept and marked corrected; adds a shared note and a club label. The student sees the same traces
@@ -40,14 +40,7 @@ const getSwing = async (api: HttpSession, id: number) => {
 };
 const eventTime = (s: SwingView, name: string) => s.events.find((e) => e.name === name)!.timeS;
 
-async function signIn(page: Page, email: string, path: string) {
-  await page.goto(`${baseUrl}${path}`);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${baseUrl}${path}`);
-}
+const signIn = (page: Page, email: string, path: string) => signInAt(page, baseUrl, email, DEMO_PASSWORD, path);
 
 const viewerReady = (page: Page) => page.locator('[data-testid="swing-workbench"][data-can-edit] [data-swing-viewer]').waitFor({ timeout: 30_000 });
 
@@ -79,9 +72,7 @@ beforeAll(async () => {
 
 afterEach(async ({ task }) => {
   if (task.result?.state === 'fail') {
-    for (const [who, page] of [['coach', coachPage], ['student', studentPage]] as const) {
-      if (page) await page.screenshot({ path: screenshotPath(`e2e-swing-viewer-failed-${who}-${task.name.replace(/\W+/g, '-').slice(0, 50)}`), fullPage: true });
-    }
+    await screenshotFailure('e2e-swing-viewer', task.name, [['coach', coachPage], ['student', studentPage]]);
   }
 });
 

@@ -8,7 +8,7 @@ import { assignmentsResponseSchema, bandsResponseSchema, drillsResponseSchema, s
 import { DEMO, DEMO_PASSWORD, e2eEnv } from '../http/support/env';
 import { signedIn, type HttpSession } from '../http/support/http-session';
 import { serverDb, settled, upload } from '../http/support/recordings-http';
-import { launchBrowser, screenshotPath, type Browser } from './support/browser';
+import { launchBrowser, screenshotFailure, screenshotPath, signInAt, type Browser } from './support/browser';
 
 // Targets, bands and drills in chromium. The coach builds a reference band from three swings and overlays it on a
 // fourth, where the band is drawn on the lead % chart and the score numbers on the page are the API's own
@@ -33,14 +33,7 @@ let swingIds: number[];
 let bandId: number;
 let assignmentId: number;
 
-async function signIn(page: Page, email: string, path: string) {
-  await page.goto(`${baseUrl}${path}`);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('Email').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(`${baseUrl}${path}`);
-}
+const signIn = (page: Page, email: string, path: string) => signInAt(page, baseUrl, email, DEMO_PASSWORD, path);
 
 beforeAll(async () => {
   const env = e2eEnv();
@@ -65,9 +58,7 @@ beforeAll(async () => {
 
 afterEach(async ({ task }) => {
   if (task.result?.state === 'fail') {
-    for (const [who, page] of [['coach', coachPage], ['student', studentPage]] as const) {
-      if (page) await page.screenshot({ path: screenshotPath(`e2e-targets-bands-failed-${who}-${task.name.replace(/\W+/g, '-').slice(0, 50)}`), fullPage: true });
-    }
+    await screenshotFailure('e2e-targets-bands', task.name, [['coach', coachPage], ['student', studentPage]]);
   }
 });
 

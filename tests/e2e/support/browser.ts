@@ -1,7 +1,7 @@
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium, type BrowserContext } from 'playwright-core';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
 // Debian's chromium, never a downloaded browser. The background-networking flags stop it from trying to reach
 // update and sync services on this offline machine.
@@ -39,4 +39,21 @@ export const artifactsDir = join(process.cwd(), 'artifacts');
 export function screenshotPath(name: string): string {
   mkdirSync(artifactsDir, { recursive: true });
   return join(artifactsDir, `${name}.png`);
+}
+
+/** Opens `path` signed out, signs in on the page it redirects to, and waits until it lands back on `path`. */
+export async function signInAt(page: Page, baseUrl: string, email: string, password: string, path: string): Promise<void> {
+  await page.goto(`${baseUrl}${path}`);
+  await page.waitForURL(/\/sign-in/);
+  await page.getByLabel('Email').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(`${baseUrl}${path}`);
+}
+
+/** After a failed test, a full-page screenshot of each named page: artifacts/<prefix>-failed-<who>-<test>.png. */
+export async function screenshotFailure(prefix: string, testName: string, pages: readonly (readonly [string, Page | undefined])[]): Promise<void> {
+  for (const [who, page] of pages) {
+    if (page) await page.screenshot({ path: screenshotPath(`${prefix}-failed-${who}-${testName.replace(/\W+/g, '-').slice(0, 50)}`), fullPage: true });
+  }
 }

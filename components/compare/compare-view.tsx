@@ -7,7 +7,8 @@ import { inputClass } from '@/components/ui/field';
 import { fetchJson } from '@/lib/fetcher';
 import { compareResponseSchema, type CompareResponse } from '@/components/targets/api-schemas';
 import { MeanCurves } from './mean-curves';
-import { METRICS, metricLabel } from './metrics';
+import { metricLabel } from './metrics';
+import { MetricPicker } from './metric-picker';
 import { StripPlot } from './strip-plot';
 
 const fetchCompare = fetchJson(compareResponseSchema);
@@ -47,16 +48,7 @@ export function CompareView({ athleteId, months }: { athleteId: number; months: 
         <label className="text-sm"><span className="block text-xs text-ink-muted">Set B (triangles, dashed)</span>
           <select aria-label="Set B" className={`${inputClass} w-auto`} value={b} onChange={(e) => setB(e.target.value)}>{options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}</select>
         </label>
-        <fieldset className="text-sm">
-          <legend className="text-xs text-ink-muted">Metrics</legend>
-          <div className="flex max-w-2xl flex-wrap gap-x-3 gap-y-1">
-            {METRICS.map((m) => (
-              <label key={m.id} className="flex items-center gap-1 text-xs">
-                <input type="checkbox" checked={metrics.includes(m.id)} onChange={(e) => setMetrics(e.target.checked ? [...metrics, m.id] : metrics.filter((x) => x !== m.id))} /> {m.label}
-              </label>
-            ))}
-          </div>
-        </fieldset>
+        <MetricPicker metrics={metrics} onChange={setMetrics} className="text-sm" listClassName="max-w-2xl" />
       </div>
       {a === b && <p className="text-sm text-ink-muted">Choose two different sets.</p>}
       {metrics.length === 0 && <p className="text-sm text-ink-muted">Tick at least one metric.</p>}

@@ -1,6 +1,4 @@
-import { AthleteProfile } from '@/components/athletes/athlete-profile';
-import { SessionList } from '@/components/athletes/session-list';
-import { CoachingCaution } from '@/components/cautions/coaching-caution';
+import { AthleteOverview } from '@/components/athletes/athlete-overview';
 import { Card, PageHeader } from '@/components/ui/card';
 import type { Viewer } from '@/lib/auth/viewer';
 import { listAthletesForViewer } from '@/lib/db/athletes';
@@ -22,15 +20,7 @@ export async function StudentHome({ viewer }: { viewer: Viewer }) {
   return (
     <>
       <PageHeader title={`Hello, ${viewer.name}`} subtitle="Your player profile and sessions" />
-      <div className="space-y-6">
-        <CoachingCaution />
-        <Card title="Profile">
-          <AthleteProfile athlete={athlete} />
-        </Card>
-        <Card title={`Sessions (${sessions.length})`}>
-          <SessionList sessions={sessions} />
-        </Card>
-      </div>
+      <AthleteOverview athlete={athlete} sessions={sessions} />
     </>
   );
 }

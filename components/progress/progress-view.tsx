@@ -5,7 +5,8 @@ import { useState } from 'react';
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
 import { progressResponseSchema } from '@/components/targets/api-schemas';
-import { METRICS, metricLabel } from '@/components/compare/metrics';
+import { MetricPicker } from '@/components/compare/metric-picker';
+import { metricLabel } from '@/components/compare/metrics';
 import { ContextKey, TrendChart } from './trend-chart';
 
 const fetchProgress = fetchJson(progressResponseSchema);
@@ -16,16 +17,7 @@ export function ProgressView({ athleteId }: { athleteId: number }) {
   const { data, error } = useSWR(url, fetchProgress, { revalidateOnFocus: false, keepPreviousData: true });
   return (
     <div className="space-y-4" data-testid="progress-view">
-      <fieldset>
-        <legend className="text-xs text-ink-muted">Metrics</legend>
-        <div className="flex flex-wrap gap-x-3 gap-y-1">
-          {METRICS.map((m) => (
-            <label key={m.id} className="flex items-center gap-1 text-xs">
-              <input type="checkbox" checked={metrics.includes(m.id)} onChange={(e) => setMetrics(e.target.checked ? [...metrics, m.id] : metrics.filter((x) => x !== m.id))} /> {m.label}
-            </label>
-          ))}
-        </div>
-      </fieldset>
+      <MetricPicker metrics={metrics} onChange={setMetrics} />
       <ContextKey />
       {error && <p role="alert" className="text-sm text-danger">Could not load the progress: {error instanceof Error ? error.message : ''}</p>}
       {!data && !error && <p className="text-sm text-ink-muted">Loading…</p>}

@@ -1,11 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { AthleteProfile } from '@/components/athletes/athlete-profile';
-import { SessionList } from '@/components/athletes/session-list';
-import { CoachingCaution } from '@/components/cautions/coaching-caution';
+import { AthleteOverview } from '@/components/athletes/athlete-overview';
 import { buttonClass } from '@/components/ui/button';
-import { Card, PageHeader } from '@/components/ui/card';
+import { PageHeader } from '@/components/ui/card';
 import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
 import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
@@ -46,15 +44,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           </div>
         }
       />
-      <div className="space-y-6">
-        <CoachingCaution />
-        <Card title="Profile">
-          <AthleteProfile athlete={athlete} />
-        </Card>
-        <Card title={`Sessions (${sessions.length})`}>
-          <SessionList sessions={sessions} />
-        </Card>
-      </div>
+      <AthleteOverview athlete={athlete} sessions={sessions} />
     </>
   );
 }

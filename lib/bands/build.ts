@@ -6,11 +6,11 @@
 // [mean - k SD, mean + k SD]; rms, the root-mean-square difference to the band mean (lib/signal rmsDifference); and
 // cmc, the coefficient of multiple correlation (Kadaba et al. 1989, lib/signal cmc) of the swing's curve with the band
 // mean taken as two curves: 1 when they coincide, falling as they differ in shape or level (an offset lowers it too).
-import { cmc, meanSdBand, registerCurve, rmsDifference } from '@/lib/signal';
+import { cmc, EVENT_NAMES, meanSdBand, registerCurve, rmsDifference } from '@/lib/signal';
 
 export const BAND_CURVES = ['leadPct', 'leadHeelPct', 'trailHeelPct', 'copX'] as const;
 export type BandCurve = (typeof BAND_CURVES)[number];
-export const BAND_EVENTS = ['address', 'top', 'transition', 'impact', 'finish'] as const;
+export const BAND_EVENTS = EVENT_NAMES;
 export const BAND_POINTS = 101;
 
 export interface SwingCurves {

@@ -1,9 +1,10 @@
 // Named per-swing metrics for compare and progress: '<event>.<measure>' (e.g. 'impact.leadPct', 'address.copSide'),
 // '<phase>.<field>' (e.g. 'backswing.durationS', 'downswing.peakCopSpeedMmS') and 'tempoRatio'.
+import { PHASE_NAMES } from '@/lib/signal/types';
 import type { SwingFacts } from '@/lib/targets/swing-facts';
 import { MEASURES, TARGET_EVENTS, type Measure, type TargetEvent } from '@/lib/targets/types';
 
-export const PHASES = ['backswing', 'transition', 'downswing', 'follow-through'] as const;
+export const PHASES = PHASE_NAMES;
 export const PHASE_FIELDS = ['durationS', 'copPathMm', 'peakCopSpeedMmS', 'meanLeadPct'] as const;
 
 export const METRICS: readonly string[] = [

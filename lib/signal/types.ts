@@ -116,10 +116,14 @@ export interface ProcessingParams {
   sample_rate_hz: number;
 }
 
-export type EventName = 'address' | 'top' | 'transition' | 'impact' | 'finish';
-export const EVENT_NAMES: readonly EventName[] = ['address', 'top', 'transition', 'impact', 'finish'];
+/** The five swing events, in time order: the one list every enum, table column and label derives from. */
+export const EVENT_NAMES = ['address', 'top', 'transition', 'impact', 'finish'] as const;
+export type EventName = (typeof EVENT_NAMES)[number];
 
-export type PhaseName = 'backswing' | 'transition' | 'downswing' | 'follow-through';
+/** The four phases between consecutive events, in time order. */
+export const PHASE_NAMES = ['backswing', 'transition', 'downswing', 'follow-through'] as const;
+export type PhaseName = (typeof PHASE_NAMES)[number];
+
 export const PHASES: readonly { name: PhaseName; from: EventName; to: EventName }[] = [
   { name: 'backswing', from: 'address', to: 'top' },
   { name: 'transition', from: 'top', to: 'transition' },

@@ -1,8 +1,11 @@
 // Target patterns: expected values with tolerances at swing events, per club group (and optionally per player).
+import { EVENT_NAMES } from '@/lib/signal/types';
+
 export const CLUB_GROUPS = ['driver', 'woods-hybrids', 'irons', 'wedges'] as const;
 export type ClubGroup = (typeof CLUB_GROUPS)[number];
 
-export const TARGET_EVENTS = ['address', 'top', 'transition', 'impact', 'finish'] as const;
+// Targets check values at the swing events of the signal core (lib/signal/types.ts EVENT_NAMES).
+export const TARGET_EVENTS = EVENT_NAMES;
 export type TargetEvent = (typeof TARGET_EVENTS)[number];
 
 /** copSide = combined COP x as % of half the stance width, + toward the lead foot (0 = centred, 100 = over the lead foot's centre). */

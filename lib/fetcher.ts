@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { errorResponseSchema } from '@/lib/validations/responses';
+import { errorResponseSchema } from '@/lib/contracts/errors';
 
 /** An API error with the server's message and per-field errors (422). */
 export class ApiError extends Error {

@@ -9,8 +9,8 @@ import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { roleLabels } from '@/components/ui/format';
 import { ApiError, fetchJson, sendJson } from '@/lib/fetcher';
-import { userListResponseSchema, userResponseSchema, type AcademyUser } from '@/lib/validations/responses';
-import { createUserSchema, roleValues, type CreateUserInput, type Role } from '@/lib/validations/user';
+import { userListResponseSchema, userResponseSchema, type AcademyUser } from '@/lib/contracts/users';
+import { createUserSchema, roleValues, type CreateUserInput, type Role } from '@/lib/contracts/users';
 
 const fetchUsers = fetchJson(userListResponseSchema);
 

@@ -8,8 +8,8 @@ import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { athleteInputSchema, STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM, type AthleteInput } from '@/lib/validations/athlete';
-import { athleteResponseSchema } from '@/lib/validations/responses';
+import { athleteInputSchema, STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM, type AthleteInput } from '@/lib/contracts/athletes';
+import { athleteResponseSchema } from '@/lib/contracts/athletes';
 
 const emptyToNull = (value: unknown) => (typeof value === 'string' && value.trim() === '' ? null : value);
 

@@ -1,7 +1,7 @@
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { formatDate, handednessLabels } from '@/components/ui/format';
-import { isMinor } from '@/lib/validations/athlete';
-import type { AthleteSummary } from '@/lib/validations/responses';
+import { isMinor } from '@/lib/contracts/athletes';
+import type { AthleteSummary } from '@/lib/contracts/athletes';
 
 // Lead foot depends on handedness: a right-handed golfer's lead foot is the left.
 function leadFoot(handedness: AthleteSummary['handedness']): string {

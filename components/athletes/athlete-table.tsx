@@ -1,8 +1,8 @@
 import Link from 'next/link';
 import { Badge } from '@/components/ui/badge';
 import { contextLabels, formatDate, handednessLabels } from '@/components/ui/format';
-import { isMinor } from '@/lib/validations/athlete';
-import type { AthleteSummary } from '@/lib/validations/responses';
+import { isMinor } from '@/lib/contracts/athletes';
+import type { AthleteSummary } from '@/lib/contracts/athletes';
 
 export function AthleteTable({ athletes }: { athletes: AthleteSummary[] }) {
   if (athletes.length === 0) {

@@ -4,8 +4,8 @@ import { useEffect, useState } from 'react';
 import useSWR from 'swr';
 import { inputClass } from '@/components/ui/field';
 import { fetchJson } from '@/lib/fetcher';
-import { handednessValues, sessionContextValues } from '@/lib/validations/athlete';
-import { athleteListResponseSchema, type AthleteSummary } from '@/lib/validations/responses';
+import { handednessValues, sessionContextValues } from '@/lib/contracts/athletes';
+import { athleteListResponseSchema, type AthleteSummary } from '@/lib/contracts/athletes';
 import { contextLabels, handednessLabels } from '@/components/ui/format';
 import { AthleteTable } from './athlete-table';
 

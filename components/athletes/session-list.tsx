@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { Badge } from '@/components/ui/badge';
 import { contextLabels, formatDate } from '@/components/ui/format';
-import type { PracticeSession } from '@/lib/validations/responses';
+import type { PracticeSession } from '@/lib/contracts/athletes';
 
 export function SessionList({ sessions }: { sessions: PracticeSession[] }) {
   if (sessions.length === 0) return <p className="text-sm text-ink-muted">No sessions recorded yet.</p>;

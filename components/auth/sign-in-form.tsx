@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { describeSignInError } from '@/lib/auth/sign-in-errors';
 import { z } from 'zod';
-import { signInSchema } from '@/lib/validations/user';
+import { signInSchema } from '@/lib/contracts/users';
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string; initialError: string | null }) {
   const [error, setError] = useState<string | null>(initialError);

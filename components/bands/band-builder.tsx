@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { contextLabels, formatDate } from '@/components/ui/format';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { bandCreatedSchema } from '@/components/targets/api-schemas';
+import { bandCreatedSchema } from '@/lib/contracts/bands';
 import { bandFormSchema, type BandFormValues } from './band-form-schema';
 import type { AthleteChoice } from './swing-choices';
 

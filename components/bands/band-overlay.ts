@@ -5,7 +5,7 @@ import { useMemo } from 'react';
 import useSWR from 'swr';
 import type { ReferenceBand } from '@/components/charts';
 import { fetchJson } from '@/lib/fetcher';
-import { bandDetailSchema, bandsResponseSchema, type BandDetail } from '@/components/targets/api-schemas';
+import { bandDetailSchema, bandsResponseSchema, type BandDetail } from '@/lib/contracts/bands';
 
 const fetchBand = fetchJson(bandDetailSchema);
 const fetchBands = fetchJson(bandsResponseSchema);

@@ -1,4 +1,4 @@
-import { ageOn } from '@/lib/validations/athlete';
+import { ageOn } from '@/lib/contracts/athletes';
 
 // Shown next to the date of birth of a player under 18.
 export function MinorConsentNote({ dateOfBirth }: { dateOfBirth: string }) {

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import useSWR from 'swr';
 import { inputClass } from '@/components/ui/field';
 import { fetchJson } from '@/lib/fetcher';
-import { compareResponseSchema, type CompareResponse } from '@/components/targets/api-schemas';
+import { compareResponseSchema, type CompareResponse } from '@/lib/contracts/compare';
 import { MeanCurves } from './mean-curves';
 import { metricLabel } from './metrics';
 import { MetricPicker } from './metric-picker';
@@ -26,8 +26,8 @@ export function setOptions(months: string[]) {
 
 function curveOf(set: CompareResponse['a']) {
   const mc = set.meanCurve;
-  const c = mc?.curves?.leadPct;
-  if (!mc?.axis || !c) return null;
+  const c = mc?.curves.leadPct;
+  if (!mc || !c) return null;
   return { label: set.label, axis: mc.axis, curve: c };
 }
 

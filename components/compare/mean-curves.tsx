@@ -4,7 +4,8 @@
 import { area, line, scaleLinear } from 'd3';
 import { CHART_COLOURS } from '@/components/charts/lib/palette';
 
-type Curve = { mean: number[]; lower: number[]; upper: number[] };
+// null where no swing of the set had a value (JSON has no NaN); the lines break there
+type Curve = { mean: (number | null)[]; lower: (number | null)[]; upper: (number | null)[] };
 const W = 640;
 const H = 220;
 const M = { left: 40, right: 12, top: 10, bottom: 28 };
@@ -28,8 +29,8 @@ export function MeanCurves({ a, b }: { a: { label: string; axis: number[]; curve
         ))}
         {sets.map((s) => {
           const pts = s.axis.map((p, i) => ({ p, m: s.curve.mean[i], lo: s.curve.lower[i], hi: s.curve.upper[i] }));
-          const band = area<(typeof pts)[number]>().x((d) => x(d.p)).y0((d) => y(d.lo)).y1((d) => y(d.hi))(pts) ?? '';
-          const mean = line<(typeof pts)[number]>().x((d) => x(d.p)).y((d) => y(d.m))(pts) ?? '';
+          const band = area<(typeof pts)[number]>().defined((d) => d.lo !== null && d.hi !== null).x((d) => x(d.p)).y0((d) => y(d.lo ?? 0)).y1((d) => y(d.hi ?? 0))(pts) ?? '';
+          const mean = line<(typeof pts)[number]>().defined((d) => d.m !== null).x((d) => x(d.p)).y((d) => y(d.m ?? 0))(pts) ?? '';
           return (
             <g key={s.label}>
               <path d={band} fill={s.colour} opacity={0.12} />

@@ -5,8 +5,8 @@ import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { assignmentInputSchema } from '@/lib/validations/drill';
-import { assignmentResponseSchema } from '@/components/targets/api-schemas';
+import { assignmentInputSchema } from '@/lib/contracts/drills';
+import { assignmentResponseSchema } from '@/lib/contracts/drills';
 import { ASSIGNMENTS_URL } from './drill-api';
 
 const inAWeek = () => new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);

@@ -2,7 +2,7 @@
 // SWR hooks for the drill library and the assignments (GET /api/drills, GET /api/drill-assignments).
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
-import { assignmentsResponseSchema, drillsResponseSchema, type Assignment, type Drill } from '@/components/targets/api-schemas';
+import { assignmentsResponseSchema, drillsResponseSchema } from '@/lib/contracts/drills';
 
 export const DRILLS_URL = '/api/drills';
 export const ASSIGNMENTS_URL = '/api/drill-assignments';
@@ -11,8 +11,3 @@ const fetchAssignments = fetchJson(assignmentsResponseSchema);
 
 export const useDrills = () => useSWR(DRILLS_URL, fetchDrills, { revalidateOnFocus: false });
 export const useAssignments = () => useSWR(ASSIGNMENTS_URL, fetchAssignments, { revalidateOnFocus: false });
-
-/** the drill an assignment refers to: embedded in the answer, else looked up in the library */
-export function drillOf(a: Assignment, drills: Drill[] | undefined): Pick<Drill, 'name'> & Partial<Drill> {
-  return a.drill ?? drills?.find((d) => d.id === a.drillId) ?? { name: `Drill ${a.drillId ?? '?'}` };
-}

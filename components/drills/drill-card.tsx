@@ -1,6 +1,7 @@
 // One drill as the coach and the student read it: steps, the checks it works on, and its own cautions.
 import type { ReactNode } from 'react';
-import { eventLabels, measureLabels, type Drill } from '@/components/targets/api-schemas';
+import { type Drill } from '@/lib/contracts/drills';
+import { eventLabels, measureLabels } from '@/lib/contracts/targets';
 
 export function DrillBody({ drill }: { drill: Partial<Drill> }) {
   return (

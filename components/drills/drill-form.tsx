@@ -9,8 +9,9 @@ import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { drillInputSchema } from '@/lib/validations/drill';
-import { drillResponseSchema, eventLabels, measureLabels, measures, targetEvents } from '@/components/targets/api-schemas';
+import { drillInputSchema } from '@/lib/contracts/drills';
+import { drillResponseSchema } from '@/lib/contracts/drills';
+import { eventLabels, measureLabels, measures, targetEvents } from '@/lib/contracts/targets';
 import { DRILLS_URL } from './drill-api';
 
 const formSchema = z.object({

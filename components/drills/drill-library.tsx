@@ -4,7 +4,7 @@ import { formatDate } from '@/components/ui/format';
 import { Badge } from '@/components/ui/badge';
 import { AssignForm } from './assign-form';
 import { DrillCard } from './drill-card';
-import { drillOf, useAssignments, useDrills } from './drill-api';
+import { useAssignments, useDrills } from './drill-api';
 
 type AthleteOption = { id: number; displayName: string };
 
@@ -26,7 +26,6 @@ export function DrillLibrary({ athletes }: { athletes: AthleteOption[] }) {
 
 export function CoachAssignments({ athletes }: { athletes: AthleteOption[] }) {
   const { data, error } = useAssignments();
-  const { data: drills } = useDrills();
   if (error) return <p role="alert" className="text-sm text-danger">Could not load the assignments.</p>;
   if (!data) return <p className="text-sm text-ink-muted">Loading…</p>;
   if (data.assignments.length === 0) return <p className="text-sm text-ink-muted">Nothing assigned yet.</p>;
@@ -40,7 +39,7 @@ export function CoachAssignments({ athletes }: { athletes: AthleteOption[] }) {
         {data.assignments.map((a) => (
           <tr key={a.id} className="border-t border-surface-line" data-assignment={a.id}>
             <td className="py-1.5">{nameOf(a.athleteId, a.athleteName)}</td>
-            <td className="py-1.5">{drillOf(a, drills?.drills).name}</td>
+            <td className="py-1.5">{a.drill.name}</td>
             <td className="py-1.5">{formatDate(a.dueDate)}</td>
             <td className="py-1.5">{a.practiceDone ? <Badge tone="ok">✓ done</Badge> : <Badge>open</Badge>}</td>
             <td className="py-1.5 text-ink-muted">{a.studentNote || '—'}</td>

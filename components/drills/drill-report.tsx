@@ -3,7 +3,8 @@
 // assignment against this session (GET /api/sessions/:id/drill-report).
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
-import { drillReportSchema, eventLabels, measureLabels, type Measure, type TargetEvent } from '@/components/targets/api-schemas';
+import { drillReportSchema } from '@/lib/contracts/drills';
+import { eventLabels, measureLabels, type Measure, type TargetEvent } from '@/lib/contracts/targets';
 
 const fetchReport = fetchJson(drillReportSchema);
 const fmt = (v: number | null | undefined) => (v == null || !Number.isFinite(v) ? '—' : v.toFixed(1));

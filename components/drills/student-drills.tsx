@@ -8,21 +8,19 @@ import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { formatDate } from '@/components/ui/format';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { assignmentPatchSchema } from '@/lib/validations/drill';
-import { assignmentResponseSchema, type Assignment } from '@/components/targets/api-schemas';
+import { assignmentPatchSchema, assignmentResponseSchema, type DrillAssignment as Assignment } from '@/lib/contracts/drills';
 import { DrillCard } from './drill-card';
-import { ASSIGNMENTS_URL, drillOf, useAssignments, useDrills } from './drill-api';
+import { ASSIGNMENTS_URL, useAssignments } from './drill-api';
 
 export function StudentDrills() {
   const { data, error } = useAssignments();
-  const { data: drills } = useDrills();
   if (error) return <p role="alert" className="text-sm text-danger">Could not load your drills: {error instanceof Error ? error.message : ''}</p>;
   if (!data) return <p className="text-sm text-ink-muted">Loading…</p>;
   if (data.assignments.length === 0) return <p className="text-sm text-ink-muted">Your coach has not given you a drill yet.</p>;
   return (
     <div className="space-y-3" data-testid="student-drills">
       {data.assignments.map((a) => (
-        <DrillCard key={a.id} drill={drillOf(a, drills?.drills)}>
+        <DrillCard key={a.id} drill={a.drill}>
           <PracticeDone assignment={a} />
         </DrillCard>
       ))}

@@ -5,7 +5,7 @@ import { Card, PageHeader } from '@/components/ui/card';
 import { roleLabels, rolePluralLabels } from '@/components/ui/format';
 import type { Viewer } from '@/lib/auth/viewer';
 import { listAcademyUsers } from '@/lib/db/users';
-import { roleValues } from '@/lib/validations/user';
+import { roleValues } from '@/lib/contracts/users';
 
 export async function AdminHome({ viewer }: { viewer: Viewer }) {
   const users = await listAcademyUsers(viewer.academyId);

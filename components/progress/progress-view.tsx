@@ -4,7 +4,7 @@
 import { useState } from 'react';
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
-import { progressResponseSchema } from '@/components/targets/api-schemas';
+import { progressResponseSchema } from '@/lib/contracts/compare';
 import { MetricPicker } from '@/components/compare/metric-picker';
 import { metricLabel } from '@/components/compare/metrics';
 import { ContextKey, TrendChart } from './trend-chart';

@@ -1,4 +1,4 @@
-import type { RecordingStatus } from './api-schemas';
+import type { RecordingStatus } from '@/lib/contracts/recordings';
 
 /** 1536 -> '1.5 KB' (binary multiples, as file managers show sizes). */
 export function formatBytes(bytes: number): string {

@@ -1,4 +1,4 @@
-import type { RecordingError } from './api-schemas';
+import type { RecordingError } from '@/lib/contracts/recordings';
 
 /** Why a file could not be processed, and where in it: "line 12, column 4". */
 export function RecordingErrorNote({ error }: { error: RecordingError }) {

@@ -2,7 +2,7 @@ import { formatBytes } from './format';
 import { NoSwingsNote } from './no-swings-note';
 import { RecordingErrorNote } from './recording-error-note';
 import { StatusBadge } from './status-badge';
-import type { SessionRecording } from './api-schemas';
+import type { SessionRecording } from '@/lib/contracts/recordings';
 
 /** The recordings of a session with their processing state. */
 export function RecordingList({ recordings }: { recordings: SessionRecording[] }) {

@@ -3,7 +3,7 @@
 import Link from 'next/link';
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
-import { isSettled, recordingViewSchema, type RecordingView } from './api-schemas';
+import { isSettled, recordingViewSchema, type RecordingView } from '@/lib/contracts/recordings';
 import { formatNumber, formatTempo } from './format';
 import { NoSwingsNote } from './no-swings-note';
 import { RecordingErrorNote } from './recording-error-note';

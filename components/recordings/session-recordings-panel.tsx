@@ -5,7 +5,7 @@ import { SwingTable } from '@/components/swings/swing-table';
 import type { SwingRow } from '@/components/swings/swing-table-columns';
 import { Card } from '@/components/ui/card';
 import { fetchJson } from '@/lib/fetcher';
-import { isSettled, sessionRecordingsSchema, type SessionRecordings } from './api-schemas';
+import { isSettled, sessionRecordingsSchema, type SessionRecordings } from '@/lib/contracts/recordings';
 import { RecordingList } from './recording-list';
 
 const fetchSession = fetchJson(sessionRecordingsSchema);

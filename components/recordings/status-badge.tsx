@@ -1,5 +1,5 @@
 import { Badge } from '@/components/ui/badge';
-import type { RecordingStatus } from './api-schemas';
+import type { RecordingStatus } from '@/lib/contracts/recordings';
 import { statusLabels } from './format';
 
 const tones = { received: 'neutral', processing: 'band', ready: 'ok', failed: 'danger' } as const;

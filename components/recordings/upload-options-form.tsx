@@ -3,8 +3,8 @@
 import type { ReactNode } from 'react';
 import { Field, inputClass } from '@/components/ui/field';
 import { contextLabels, formatDate } from '@/components/ui/format';
-import { STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM } from '@/lib/validations/athlete';
-import type { PracticeSession } from '@/lib/validations/responses';
+import { STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM } from '@/lib/contracts/athletes';
+import type { PracticeSession } from '@/lib/contracts/athletes';
 import type { LayoutChoice, OptionErrors, UploadOptionsState } from './upload-options';
 
 export type SavedProfile = { id: number; name: string };

@@ -1,4 +1,4 @@
-import type { Role } from '@/lib/validations/user';
+import type { Role } from '@/lib/contracts/users';
 
 export type NavItem = { href: string; label: string };
 

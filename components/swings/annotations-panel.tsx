@@ -9,7 +9,7 @@ import { inputClass } from '@/components/ui/field';
 import { PHASES } from '@/lib/signal/types';
 import { phaseLabels } from './labels';
 import { createAnnotation, deleteAnnotation, errorText, updateAnnotation } from './swing-api';
-import { phaseNames, type Annotation } from './swing-schemas';
+import { phaseNames, type Annotation } from '@/lib/contracts/swings';
 
 /** Where a note sits on the swing's time axis: its time, or the start event of its phase. */
 export function annotationTime(a: Annotation, events: SwingEvents | null): number {

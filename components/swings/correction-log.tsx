@@ -1,6 +1,6 @@
 // Who moved which event, from where to where and when (newest first, as the API sends them).
 import { eventLabels } from './labels';
-import type { SwingView } from './swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 
 export function CorrectionLog({ corrections, timeZero }: { corrections: SwingView['corrections']; timeZero: number }) {
   return (

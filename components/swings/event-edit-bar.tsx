@@ -4,7 +4,7 @@
 import { Badge } from '@/components/ui/badge';
 import type { EventName } from '@/lib/signal/types';
 import { eventLabels } from './labels';
-import type { SwingView } from './swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 
 export interface EventEditBarProps {
   swing: SwingView;

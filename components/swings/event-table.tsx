@@ -1,6 +1,6 @@
 import { Badge } from '@/components/ui/badge';
 import { formatNumber } from '@/components/recordings/format';
-import type { SwingDetail } from './swing-schemas';
+import type { SwingDetail } from '@/lib/contracts/swings';
 import { eventLabels } from './labels';
 
 const th = 'py-2 pr-4 font-medium';

@@ -1,8 +1,8 @@
 // The labels form's values (strings as the controls hold them), checked by turning them into the PATCH body's
 // `labels` and running the route's own schema (lib/validations/swing.ts) on that, so both sides agree.
 import { z } from 'zod';
-import { swingLabelsSchema } from '@/lib/validations/swing';
-import { clubs, flights, strikes, type SwingLabels } from './swing-schemas';
+import { swingLabelsInputSchema } from '@/lib/contracts/swings';
+import { clubs, flights, strikes, type SwingLabels } from '@/lib/contracts/swings';
 
 const orNone = <T extends readonly [string, ...string[]]>(values: T) => z.union([z.enum(values), z.literal('')]);
 
@@ -21,7 +21,7 @@ export const labelFormSchema = z
     notASwing: z.boolean(),
   })
   .superRefine((v, ctx) => {
-    const r = swingLabelsSchema.safeParse(toLabels(v));
+    const r = swingLabelsInputSchema.safeParse(toLabels(v));
     if (r.success) return;
     // tags.3 -> the tags field; the message names the limit
     for (const issue of r.error.issues) ctx.addIssue({ code: 'custom', path: [String(issue.path[0] ?? 'tags')], message: issue.message });

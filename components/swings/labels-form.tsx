@@ -10,7 +10,7 @@ import { ApiError } from '@/lib/fetcher';
 import { labelFormSchema, toFormValues, toLabels, type LabelFormValues } from './label-form-schema';
 import { clubLabels, flightLabels, strikeLabels } from './labels';
 import { errorText, patchSwing } from './swing-api';
-import { clubs, flights, strikes, type SwingLabels, type SwingView } from './swing-schemas';
+import { clubs, flights, strikes, type SwingLabels, type SwingView } from '@/lib/contracts/swings';
 
 export function LabelsForm({ swingId, labels, onSaved }: { swingId: number; labels: SwingLabels; onSaved: (swing: SwingView) => void }) {
   const [formError, setFormError] = useState<string | null>(null);

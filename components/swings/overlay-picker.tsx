@@ -4,7 +4,7 @@ import useSWR from 'swr';
 import type { OverlayTrace } from '@/components/charts';
 import { fetchJson } from '@/lib/fetcher';
 import { swingUrl } from './swing-api';
-import { swingViewResponseSchema, type SwingView } from './swing-schemas';
+import { swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
 import { eventRecord, traceSeries } from './swing-view-model';
 
 const fetchSwing = fetchJson(swingViewResponseSchema);

@@ -1,7 +1,7 @@
 // What each phase means in plain words, for the student (our own wording; the times come from the events
 // that bound the phase).
 import { phaseLabels } from './labels';
-import type { SwingDetail } from './swing-schemas';
+import type { SwingDetail } from '@/lib/contracts/swings';
 
 export const phaseExplanations: Record<keyof typeof phaseLabels, string> = {
   backswing:

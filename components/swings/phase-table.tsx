@@ -1,5 +1,5 @@
 import { formatNumber } from '@/components/recordings/format';
-import type { SwingDetail } from './swing-schemas';
+import type { SwingDetail } from '@/lib/contracts/swings';
 import { phaseLabels } from './labels';
 
 const th = 'py-2 pr-4 font-medium';

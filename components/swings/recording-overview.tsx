@@ -7,7 +7,7 @@ import { scaleLinear } from 'd3';
 import type { MouseEvent } from 'react';
 import { CHART_COLOURS, TONE_STYLE } from '@/components/charts/lib/palette';
 import { linePath } from '@/components/charts/lib/paths';
-import type { SwingView } from './swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 
 const W = 1000;
 const H = 40;

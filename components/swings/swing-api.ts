@@ -1,9 +1,9 @@
 // Writes to /api/swings/:id and its annotations, through lib/fetcher.ts (zod-checked answers, ApiError with the
 // server's field errors on 422).
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { errorResponseSchema } from '@/lib/validations/responses';
+import { errorResponseSchema } from '@/lib/contracts/errors';
 import type { EventName } from '@/lib/signal/types';
-import { annotationResponseSchema, swingViewResponseSchema, type Annotation, type SwingLabels } from './swing-schemas';
+import { annotationResponseSchema, swingViewResponseSchema, type Annotation, type SwingLabels } from '@/lib/contracts/swings';
 
 export const swingUrl = (id: number) => `/api/swings/${id}`;
 

@@ -1,6 +1,6 @@
 // The swing's headline numbers in one compact strip: tempo, lead % at impact and where the impact time came from.
 import { formatTempo, impactSourceLabels } from '@/components/recordings/format';
-import type { SwingDetail } from './swing-schemas';
+import type { SwingDetail } from '@/lib/contracts/swings';
 
 function Fact({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (

@@ -2,7 +2,7 @@
 // typed arrays, events as a record). Pure: used by the client viewer and the server-rendered lesson summary.
 import type { SensorFrames, SwingEvents, TraceSeries } from '@/components/charts';
 import type { SensorLayout } from '@/lib/signal/types';
-import { eventNames, type SwingDetail, type SwingView } from './swing-schemas';
+import { eventNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 
 const toArray = (a: (number | null)[]) => Float64Array.from(a, (v) => (v === null ? NaN : v));
 

@@ -19,7 +19,7 @@ import { PhaseTable } from './phase-table';
 import { RecordingOverview } from './recording-overview';
 import { CorrectionLog } from './correction-log';
 import { errorText, patchSwing, swingUrl } from './swing-api';
-import { swingViewResponseSchema, type SwingDetail, type SwingView } from './swing-schemas';
+import { swingViewResponseSchema, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { SwingFacts } from './swing-facts';
 import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries } from './swing-view-model';
 import { BandPicker } from '@/components/bands/band-picker';

@@ -2,7 +2,7 @@
 // "passed / total" target checks for one swing in the session's swings table (GET /api/swings/:id/score).
 import useSWR from 'swr';
 import { fetchJson } from '@/lib/fetcher';
-import { scoreResponseSchema } from './api-schemas';
+import { scoreResponseSchema } from '@/lib/contracts/targets';
 import { scoreUrl } from './score-panel';
 
 const fetchScore = fetchJson(scoreResponseSchema);

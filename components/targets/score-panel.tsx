@@ -4,7 +4,7 @@
 import useSWR from 'swr';
 import { Badge } from '@/components/ui/badge';
 import { fetchJson } from '@/lib/fetcher';
-import { eventLabels, measureLabels, scoreResponseSchema, type ScoreResponse } from './api-schemas';
+import { eventLabels, measureLabels, scoreResponseSchema, type ScoreResponse } from '@/lib/contracts/targets';
 
 const fetchScore = fetchJson(scoreResponseSchema);
 

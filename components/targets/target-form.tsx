@@ -8,8 +8,8 @@ import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { ApiError, sendJson } from '@/lib/fetcher';
-import { targetInputSchema, type TargetInput } from '@/lib/validations/target';
-import { clubGroupLabels, clubGroups, eventLabels, measureLabels, measures, targetEvents, targetResponseSchema, type Target } from './api-schemas';
+import { targetInputSchema, type TargetInput } from '@/lib/contracts/targets';
+import { clubGroupLabels, clubGroups, eventLabels, measureLabels, measures, targetEvents, targetResponseSchema, type Target } from '@/lib/contracts/targets';
 
 export const TARGETS_URL = '/api/targets';
 const cell = `${inputClass} px-2 py-1`;

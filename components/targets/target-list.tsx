@@ -5,7 +5,7 @@ import useSWR from 'swr';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { fetchJson } from '@/lib/fetcher';
-import { clubGroupLabels, clubGroups, eventLabels, measureLabels, targetsResponseSchema, type Target } from './api-schemas';
+import { clubGroupLabels, clubGroups, eventLabels, measureLabels, targetsResponseSchema, type Target } from '@/lib/contracts/targets';
 import { TARGETS_URL, TargetForm } from './target-form';
 
 const fetchTargets = fetchJson(targetsResponseSchema);

@@ -9,7 +9,7 @@ import { rateLimitedCode } from '@/lib/auth/sign-in-errors';
 import { recentEmailFailures, recentIpFailures, recordLoginAttempt } from '@/lib/db/login-attempts';
 import { findUserForSignIn } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
-import { signInSchema } from '@/lib/validations/user';
+import { signInSchema } from '@/lib/contracts/users';
 
 const SESSION_MAX_AGE_S = 8 * 60 * 60; // one working day
 

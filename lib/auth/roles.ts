@@ -5,7 +5,7 @@ import { getAuthOptions } from '@/lib/auth/options';
 import type { Viewer } from '@/lib/auth/viewer';
 import { findActiveUser } from '@/lib/db/users';
 import { ForbiddenError, UnauthenticatedError } from '@/lib/http';
-import type { Role } from '@/lib/validations/user';
+import type { Role } from '@/lib/contracts/users';
 
 /**
  * The signed-in user, or null. The role and academy are re-read from the database so that a deactivated

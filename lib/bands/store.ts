@@ -4,7 +4,7 @@ import { db } from '@/lib/db/client';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
 import { parseStoredSeries } from '@/lib/swings/stored-series';
-import type { BandInput } from '@/lib/validations/band';
+import { MIN_BAND_SWINGS, type BandDetail, type BandInput, type BandSummary } from '@/lib/contracts/bands';
 import { ZodError } from 'zod';
 import { BAND_CURVES, BAND_EVENTS, BAND_POINTS, buildBand, unusableReason, type BandData, type SwingCurves } from './build';
 
@@ -12,7 +12,7 @@ import { BAND_CURVES, BAND_EVENTS, BAND_POINTS, buildBand, unusableReason, type 
 // the ones shared within the academy; a student sees the bands made by their coaches (to overlay on their swings).
 // Provenance kept with each band: swing ids, parameters (registration, points, curves, k), created_at.
 
-export const MIN_BAND_SWINGS = 3;
+export { MIN_BAND_SWINGS };
 
 const nanOf = (v: number | null) => (v === null ? NaN : v);
 
@@ -93,7 +93,7 @@ function visibleQuery(viewer: Viewer) {
   return q;
 }
 
-export async function listBands(viewer: Viewer) {
+export async function listBands(viewer: Viewer): Promise<BandSummary[]> {
   const rows = await visibleQuery(viewer).select('b.id', 'b.name', 'b.swing_ids', 'b.k', 'b.shared', 'b.created_at', 'b.owner_user_id', 'u.name as owner_name').orderBy('b.id', 'desc');
   return rows.map((r) => ({
     id: Number(r.id),
@@ -147,7 +147,7 @@ export async function getBand(viewer: Viewer, id: number): Promise<BandView> {
 }
 
 /** JSON has no NaN: missing points go out as null. */
-export function bandJson(b: BandView) {
+export function bandJson(b: BandView): BandDetail {
   const out = (a: number[]) => a.map((v) => (Number.isFinite(v) ? v : null));
   const curves = Object.fromEntries(BAND_CURVES.map((c) => [c, { mean: out(b.curves[c].mean), sd: out(b.curves[c].sd), lower: out(b.curves[c].lower), upper: out(b.curves[c].upper) }]));
   return { ...b, curves };

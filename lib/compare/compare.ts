@@ -1,20 +1,12 @@
 // Compare two sets of one athlete's swings (pure): the values per metric, the mean difference (B - A) with Welch's t
 // 95 % interval, and an honest note when a set has fewer than 3 swings with the metric.
+import type { MetricDifference } from '@/lib/contracts/compare';
 import type { SwingFacts } from '@/lib/targets/swing-facts';
 import { metricValues } from './metrics';
 import { inSet, setLabel } from './sets';
 import { mean, smallSetNote, welchInterval } from './stats';
 
-export interface MetricDifference {
-  metric: string;
-  meanA: number | null;
-  meanB: number | null;
-  diff: number | null;
-  ci95: [number, number] | null;
-  df: number | null;
-  method: 'welch';
-  note: string | null;
-}
+export type { MetricDifference };
 
 export function compareSets(swings: SwingFacts[], a: string, b: string, metrics: string[]) {
   const visible = swings.filter((s) => !s.hidden);

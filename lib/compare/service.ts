@@ -4,6 +4,7 @@ import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
+import type { CompareResponse, ProgressResponse } from '@/lib/contracts/compare';
 import { buildBand, BAND_CURVES, type BandData } from '@/lib/bands/build';
 import { loadSwingCurves } from '@/lib/bands/store';
 import { scoreSwing } from '@/lib/targets/score';
@@ -36,7 +37,7 @@ async function meanCurve(swingIds: number[]) {
   return usable.length < 2 ? null : curvesJson(buildBand(usable, 1));
 }
 
-export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a: string; b: string; metrics: string[] }) {
+export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a: string; b: string; metrics: string[] }): Promise<CompareResponse> {
   await requireAthleteRead(viewer, athleteId);
   const facts = await swingFacts({ athleteId });
   const result = compareSets(facts, q.a, q.b, q.metrics);
@@ -45,7 +46,7 @@ export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a
   return { a: { ...result.a, meanCurve: ca }, b: { ...result.b, meanCurve: cb }, differences: result.differences };
 }
 
-export async function progressForViewer(viewer: Viewer, athleteId: number, metrics: string[]) {
+export async function progressForViewer(viewer: Viewer, athleteId: number, metrics: string[]): Promise<ProgressResponse> {
   await requireAthleteRead(viewer, athleteId);
   const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
   const targets = new Map<ClubGroup, Target | null>();

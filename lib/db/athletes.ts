@@ -4,8 +4,8 @@ import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import type { Viewer } from '@/lib/auth/viewer';
 import { NotFoundError } from '@/lib/http';
-import type { AthleteInput, AthleteListQuery, AthletePatch } from '@/lib/validations/athlete';
-import type { AthleteSummary } from '@/lib/validations/responses';
+import type { AthleteInput, AthleteListQuery, AthletePatch } from '@/lib/contracts/athletes';
+import type { AthleteSummary } from '@/lib/contracts/athletes';
 
 // Scoping rules (who sees which athlete):
 // - coach: athletes linked to them in coach_athletes, in their academy;

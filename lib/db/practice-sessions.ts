@@ -1,6 +1,6 @@
 import 'server-only';
 import { db } from '@/lib/db/client';
-import type { PracticeSession } from '@/lib/validations/responses';
+import type { PracticeSession } from '@/lib/contracts/athletes';
 
 /**
  * DATE columns arrive either as 'YYYY-MM-DD' strings (dateStrings) or as Date objects at local midnight

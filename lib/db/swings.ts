@@ -4,7 +4,7 @@ import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
-import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/components/swings/swing-schemas';
+import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { listAnnotations } from '@/lib/swings/annotations';
 import { labelsOf } from '@/lib/swings/labels';
 import { correctionsView, layoutView, overviewView, sensorFramesView, seriesView, siblingsView, storedSeriesOf } from '@/lib/swings/viewer-data';

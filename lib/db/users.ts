@@ -1,8 +1,8 @@
 import 'server-only';
 import { db } from '@/lib/db/client';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
-import type { Role, UpdateUserInput } from '@/lib/validations/user';
-import type { AcademyUser } from '@/lib/validations/responses';
+import type { Role, UpdateUserInput } from '@/lib/contracts/users';
+import type { AcademyUser } from '@/lib/contracts/users';
 
 export type UserForSignIn = {
   id: number;

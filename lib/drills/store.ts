@@ -5,7 +5,7 @@ import { toIsoDate } from '@/lib/db/practice-sessions';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess, requireSessionAccess } from '@/lib/recordings/access';
 import { swingFacts } from '@/lib/targets/swing-facts';
-import type { DrillInput } from '@/lib/validations/drill';
+import type { DrillInput } from '@/lib/contracts/drills';
 import { checkMoves, type CheckMove } from './report';
 import type { Drill, DrillAssignment } from './types';
 

@@ -1,26 +1,5 @@
-import type { Measure, TargetEvent } from '@/lib/targets/types';
-
-export interface Drill {
-  id: number;
-  name: string;
-  steps: string[];
-  addressesChecks: { event: TargetEvent; measure: Measure }[];
-  cautions: string;
-  ownerUserId: number;
-}
-
-export interface DrillAssignment {
-  id: number;
-  drill: Drill;
-  athleteId: number;
-  athleteName: string;
-  assignedBy: number | null;
-  assignedAt: string;
-  dueDate: string;
-  practiceDone: boolean;
-  doneAt: string | null;
-  studentNote: string | null;
-}
+// Drill and assignment shapes live in the drills contract (lib/contracts/drills.ts).
+export type { Drill, DrillAssignment } from '@/lib/contracts/drills';
 
 /** The caution every drill is shown with, besides its own (coaching information; pain; medical advice; minors). */
 export const DRILL_CAUTION =

@@ -2,7 +2,7 @@
 // (a preset id or JSON) and are checked with the signal core's own schemas, so a bad one is a 422 on its field.
 import { z } from 'zod';
 import { builtinLayout, importProfileSchema, parseLayout, parseProfile, sensorLayoutSchema, SignalInputError, type ImportProfile } from '@/lib/signal';
-import { STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM } from '@/lib/validations/athlete';
+import { STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM } from '@/lib/contracts/athletes';
 import type { RecordingOptions } from './options';
 
 /** Form fields arrive as text; a blank one counts as left out. */

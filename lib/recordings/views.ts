@@ -3,12 +3,15 @@ import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import { EVENT_NAMES, type EventName } from '@/lib/signal';
+import type { RecordingStatus, RecordingView, SessionRecordings, SwingSummary } from '@/lib/contracts/recordings';
 import type { RecordingOptions } from './options';
 
 // Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
 // percentages to 1, exactly as `npm run analyze` prints them (roundAnalysis), so the two can be compared 1:1.
 
-export type RecordingStatus = 'received' | 'processing' | 'ready' | 'failed';
+export type { RecordingStatus, RecordingView };
+type SwingView = SwingSummary;
+type SessionRecordingsView = SessionRecordings;
 
 const r3 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 1000) / 1000 || 0);
 const r1 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 10) / 10 || 0);
@@ -17,22 +20,6 @@ const r2 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Nu
 function jsonColumn<T>(value: unknown): T | null {
   if (value === null || value === undefined) return null;
   return (typeof value === 'string' ? JSON.parse(value) : value) as T;
-}
-
-export interface SwingView {
-  id: number;
-  recordingId: number;
-  index: number;
-  startS: number;
-  endS: number;
-  events: Record<EventName, number>;
-  /** where each event time came from; `misfit` marks a manual time a reprocess left out of place */
-  eventSources: Record<EventName, { source: 'auto' | 'manual'; autoTimeS: number | null; misfit: boolean }>;
-  impactSource: 'marker' | 'detected';
-  tempoRatio: number | null;
-  leadPctAtImpact: number | null;
-  hidden: boolean;
-  stale: boolean;
 }
 
 type SwingRow = { id: number; recording_id: number; swing_index: number; start_s: number; end_s: number; impact_source: 'marker' | 'detected'; tempo_ratio: number | null; hidden: boolean; stale: boolean };
@@ -55,7 +42,7 @@ async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
     const sources = {} as SwingView['eventSources'];
     for (const name of EVENT_NAMES) {
       const e = mine.find((row) => row.name === name);
-      times[name] = r3(e?.time_s) as number;
+      times[name] = r3(e?.time_s);
       sources[name] = { source: e?.source ?? 'auto', autoTimeS: r3(e?.auto_time_s), misfit: Boolean(e?.misfit) };
     }
     return {
@@ -73,25 +60,6 @@ async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
       stale: Boolean(s.stale),
     };
   });
-}
-
-export interface RecordingView {
-  id: number;
-  athleteId: number;
-  sessionId: number;
-  filename: string;
-  byteSize: number;
-  sha256: string;
-  status: RecordingStatus;
-  error: { message: string; line: number | null; column: number | null } | null;
-  /** the processing parameters of the last analysis; before one, the requested values */
-  parameters: Record<string, unknown>;
-  options: RecordingOptions;
-  algorithmVersion: string | null;
-  recording: Record<string, unknown> | null;
-  createdAt: string;
-  processedAt: string | null;
-  swings: SwingView[];
 }
 
 type RecordingRow = {
@@ -167,12 +135,6 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
   if (!row) return null;
   const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
   return toView(row, swings);
-}
-
-export interface SessionRecordingsView {
-  session: { id: number; athleteId: number; sessionDate: string; context: string; location: string | null };
-  recordings: (Omit<RecordingView, 'swings'> & { swingCount: number })[];
-  swings: SwingView[];
 }
 
 export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {

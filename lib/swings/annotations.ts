@@ -1,9 +1,9 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
-import type { Annotation } from '@/components/swings/swing-schemas';
+import type { Annotation } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
-import type { AnnotationCreateInput, AnnotationPatchInput } from '@/lib/validations/swing';
+import type { AnnotationCreateInput, AnnotationPatchInput } from '@/lib/contracts/swings';
 
 // Notes on a swing. Coaches see all of a swing's notes; the student only those shared with them. A note is changed
 // or removed by its author or by the athlete's coach (route handlers check the coach first).

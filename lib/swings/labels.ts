@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Knex } from 'knex';
-import type { SwingLabels } from '@/components/swings/swing-schemas';
-import type { SwingLabelsInput } from '@/lib/validations/swing';
+import type { SwingLabels } from '@/lib/contracts/swings';
+import type { SwingLabelsInput } from '@/lib/contracts/swings';
 
 // A swing's labels (swing_labels) and "not a swing", which is swings.hidden so the session's swing list and any
 // stats leave the swing out (GET /api/sessions/:id/recordings reports it as hidden: true); restorable by setting it false.

@@ -2,7 +2,7 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { EVENT_NAMES } from '@/lib/signal';
-import type { SwingPatchInput } from '@/lib/validations/swing';
+import type { SwingPatchInput } from '@/lib/contracts/swings';
 import { applyEventChanges } from './corrections';
 import { applyLabels } from './labels';
 

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { EventName } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
-import type { SwingView } from '@/components/swings/swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';

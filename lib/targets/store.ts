@@ -3,7 +3,7 @@ import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
-import type { TargetInput } from '@/lib/validations/target';
+import type { TargetInput } from '@/lib/contracts/targets';
 import type { ClubGroup, Target, TargetCheck } from './types';
 
 // Who sees which targets: a coach sees the academy defaults, their own, and any target for an athlete on their

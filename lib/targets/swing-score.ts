@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { getBand, loadSwingCurves } from '@/lib/bands/store';
+import type { ScoreResponse } from '@/lib/contracts/targets';
 import { scoreSwingAgainstBand } from '@/lib/bands/build';
 import { ConflictError, NotFoundError } from '@/lib/http';
 import { requireSwingAccess } from '@/lib/swings/access';
@@ -11,7 +12,7 @@ import { swingFacts } from './swing-facts';
 // GET /api/swings/:id/score: the swing against the target that applies to it (athlete-specific for its club group,
 // else its coach's, else the academy default; no club label scores as irons) and, with ?band=, against a band.
 // The band's top-level numbers are the lead % curve; byCurve has all four curves.
-export async function scoreSwingForViewer(viewer: Viewer, swingId: number, bandId: number | null) {
+export async function scoreSwingForViewer(viewer: Viewer, swingId: number, bandId: number | null): Promise<ScoreResponse> {
   await requireSwingAccess(viewer, swingId, 'read');
   const [facts] = await swingFacts({ swingIds: [swingId] });
   if (!facts) throw new NotFoundError('No swing with this id.');

@@ -1,42 +1,9 @@
 // Target patterns: expected values with tolerances at swing events, per club group (and optionally per player).
-import { EVENT_NAMES } from '@/lib/signal/types';
+import type { ClubGroup } from '@/lib/contracts/targets';
 
-export const CLUB_GROUPS = ['driver', 'woods-hybrids', 'irons', 'wedges'] as const;
-export type ClubGroup = (typeof CLUB_GROUPS)[number];
-
-// Targets check values at the swing events of the signal core (lib/signal/types.ts EVENT_NAMES).
-export const TARGET_EVENTS = EVENT_NAMES;
-export type TargetEvent = (typeof TARGET_EVENTS)[number];
-
-/** copSide = combined COP x as % of half the stance width, + toward the lead foot (0 = centred, 100 = over the lead foot's centre). */
-export const MEASURES = ['leadPct', 'leadHeelPct', 'trailHeelPct', 'copSide'] as const;
-export type Measure = (typeof MEASURES)[number];
-
-export interface TargetCheck {
-  event: TargetEvent;
-  measure: Measure;
-  expected: number;
-  tolerance: number;
-}
-
-export interface Tempo {
-  min: number;
-  max: number;
-}
-
-export interface Target {
-  id: number;
-  name: string;
-  description: string;
-  clubGroup: ClubGroup;
-  athleteId: number | null;
-  ownerUserId: number | null;
-  isDefault: boolean;
-  commonPractice: boolean;
-  checks: TargetCheck[];
-  tempo: Tempo | null;
-  updatedAt: string;
-}
+// The names, lists and shapes live in the targets contract (lib/contracts/targets.ts).
+export { CLUB_GROUPS, MEASURES, TARGET_EVENTS } from '@/lib/contracts/targets';
+export type { ClubGroup, Measure, Target, TargetCheck, TargetEvent, Tempo } from '@/lib/contracts/targets';
 
 /** Swing label club -> club group. No club label scores as 'irons' (the most common practice club; documented in the API). */
 export function clubGroupOf(club: string | null | undefined): ClubGroup {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { annotationTime, sortAnnotations } from '@/components/swings/annotations-panel';
 import { labelFormSchema, splitTags, toFormValues, toLabels } from '@/components/swings/label-form-schema';
-import type { Annotation } from '@/components/swings/swing-schemas';
+import type { Annotation } from '@/lib/contracts/swings';
 import { eventRecord, movedEvents, sensorFrames, traceSeries } from '@/components/swings/swing-view-model';
 
 // The swing page's translations between the API's JSON and the viewer. Expected values are worked out by hand from

@@ -6,7 +6,7 @@ import { promisify } from 'node:util';
 import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
-import { swingResponseSchema, type SwingDetail } from '@/components/swings/swing-schemas';
+import { swingResponseSchema, type SwingDetail } from '@/lib/contracts/swings';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';

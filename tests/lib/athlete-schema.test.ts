@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ageOn, athleteInputSchema, athletePatchSchema, isMinor } from '@/lib/validations/athlete';
+import { ageOn, athleteInputSchema, athletePatchSchema, isMinor } from '@/lib/contracts/athletes';
 import { zodFieldErrors } from '@/lib/http';
 
 const valid = { displayName: 'Test Player', handedness: 'right', stanceWidthMm: 400, dateOfBirth: null, homeClub: null };

@@ -5,7 +5,7 @@ import { buttonClass } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageRole } from '@/lib/auth/roles';
 import { listAthletesForViewer } from '@/lib/db/athletes';
-import { athleteListQuerySchema, type AthleteListQuery } from '@/lib/validations/athlete';
+import { athleteListQuerySchema, type AthleteListQuery } from '@/lib/contracts/athletes';
 
 export const metadata: Metadata = { title: 'Roster' };
 

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { createAthleteForCoach, listAthletesForViewer } from '@/lib/db/athletes';
 import { json, readJson, withErrors } from '@/lib/http';
-import { athleteInputSchema, athleteListQuerySchema } from '@/lib/validations/athlete';
+import { athleteInputSchema, athleteListQuerySchema } from '@/lib/contracts/athletes';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { createBand, listBands } from '@/lib/bands/store';
 import { json, readJson, withErrors } from '@/lib/http';
-import { bandInputSchema } from '@/lib/validations/band';
+import { bandInputSchema } from '@/lib/contracts/bands';
 
 export const dynamic = 'force-dynamic';
 

@@ -2,7 +2,7 @@ import { requireRole } from '@/lib/auth/roles';
 import { createDrill, listDrills } from '@/lib/drills/store';
 import { DRILL_CAUTION } from '@/lib/drills/types';
 import { json, readJson, withErrors } from '@/lib/http';
-import { drillInputSchema } from '@/lib/validations/drill';
+import { drillInputSchema } from '@/lib/contracts/drills';
 
 export const dynamic = 'force-dynamic';
 

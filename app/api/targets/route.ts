@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, readJson, withErrors } from '@/lib/http';
 import { createTarget, listTargets } from '@/lib/targets/store';
-import { targetInputSchema } from '@/lib/validations/target';
+import { targetInputSchema } from '@/lib/contracts/targets';
 
 export const dynamic = 'force-dynamic';
 

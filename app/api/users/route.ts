@@ -2,7 +2,7 @@ import { hashPassword } from '@/lib/auth/password';
 import { requireRole } from '@/lib/auth/roles';
 import { createAcademyUser, listAcademyUsers } from '@/lib/db/users';
 import { json, readJson, withErrors } from '@/lib/http';
-import { createUserSchema } from '@/lib/validations/user';
+import { createUserSchema } from '@/lib/contracts/users';
 
 export const dynamic = 'force-dynamic';
 

@@ -13,7 +13,7 @@ import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
 import { idParamSchema } from '@/lib/http';
 import { getSessionRecordingsView } from '@/lib/recordings/views';
-import { isMinor } from '@/lib/validations/athlete';
+import { isMinor } from '@/lib/contracts/athletes';
 
 export const metadata: Metadata = { title: 'Session' };
 

@@ -5,7 +5,7 @@ import { preload } from 'react-dom';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { ProcessingParameters } from '@/components/swings/processing-parameters';
-import type { SwingDetail } from '@/components/swings/swing-schemas';
+import type { SwingDetail } from '@/lib/contracts/swings';
 import { SwingWorkbench } from '@/components/swings/swing-workbench';
 import { Badge } from '@/components/ui/badge';
 import { Card, PageHeader } from '@/components/ui/card';
@@ -13,7 +13,7 @@ import { contextLabels, formatDate } from '@/components/ui/format';
 import { requirePageRole } from '@/lib/auth/roles';
 import { getSwingDetail } from '@/lib/db/swings';
 import { HttpError, idParamSchema } from '@/lib/http';
-import { isMinor } from '@/lib/validations/athlete';
+import { isMinor } from '@/lib/contracts/athletes';
 
 export const metadata: Metadata = { title: 'Swing' };
 

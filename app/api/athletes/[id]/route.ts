@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { getAthleteForViewer, updateAthleteForViewer } from '@/lib/db/athletes';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { athletePatchSchema } from '@/lib/validations/athlete';
+import { athletePatchSchema } from '@/lib/contracts/athletes';
 
 export const dynamic = 'force-dynamic';
 

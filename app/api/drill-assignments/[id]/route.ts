@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { updateAssignment } from '@/lib/drills/store';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { assignmentPatchSchema } from '@/lib/validations/drill';
+import { assignmentPatchSchema } from '@/lib/contracts/drills';
 
 export const dynamic = 'force-dynamic';
 type Context = { params: Promise<{ id: string }> };

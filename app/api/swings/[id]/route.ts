@@ -3,7 +3,7 @@ import { getSwingForViewer } from '@/lib/db/swings';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { requireSwingAccess } from '@/lib/swings/access';
 import { patchSwing } from '@/lib/swings/patch';
-import { swingPatchSchema } from '@/lib/validations/swing';
+import { swingPatchSchema } from '@/lib/contracts/swings';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { deleteTarget, updateTarget } from '@/lib/targets/store';
-import { targetPatchSchema } from '@/lib/validations/target';
+import { targetPatchSchema } from '@/lib/contracts/targets';
 
 export const dynamic = 'force-dynamic';
 type Context = { params: Promise<{ id: string }> };

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { updateAcademyUser } from '@/lib/db/users';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { updateUserSchema } from '@/lib/validations/user';
+import { updateUserSchema } from '@/lib/contracts/users';
 
 export const dynamic = 'force-dynamic';
 

@@ -5,7 +5,7 @@ import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { formatNumber, formatTempo } from '@/components/recordings/format';
 import { clubLabels, eventLabels, flightLabels, phaseLabels, strikeLabels } from '@/components/swings/labels';
-import type { SwingView } from '@/components/swings/swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 import { buttonClass } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { contextLabels, formatDate } from '@/components/ui/format';
@@ -15,7 +15,7 @@ import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
 import { getSwingViewForViewer } from '@/lib/db/swings';
 import { idParamSchema } from '@/lib/http';
 import { getSessionRecordingsView } from '@/lib/recordings/views';
-import { isMinor } from '@/lib/validations/athlete';
+import { isMinor } from '@/lib/contracts/athletes';
 import './print.css';
 import { PrintButton } from './print-button';
 import { summaryExtras } from './summary-data';
@@ -91,7 +91,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
                 .filter((s) => notesBySwing.has(s.id))
                 .flatMap((s) =>
                   notesBySwing.get(s.id)!
-                    .sort((a, b) => (a.timeS ?? s.events.address) - (b.timeS ?? s.events.address))
+                    .sort((a, b) => (a.timeS ?? s.events.address ?? 0) - (b.timeS ?? s.events.address ?? 0))
                     .map((n) => (
                       <li key={n.id}>
                         <span className="font-medium text-ink">{swingName(s.id)}, {noteWhere(n, s.startS)}:</span> <span className="whitespace-pre-wrap text-ink">{n.body}</span>{' '}
@@ -139,7 +139,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
                         <td className="py-1.5 pr-3">{outcome || '—'}</td>
                         <td className="py-1.5 pr-3">{l?.rating ? `${l.rating} / 5` : '—'}</td>
                         <td className="py-1.5 pr-3">{formatTempo(s.tempoRatio)}</td>
-                        <td className="py-1.5 pr-3">{formatNumber(s.events.impact - s.events.top, 2)}</td>
+                        <td className="py-1.5 pr-3">{formatNumber(s.events.impact !== null && s.events.top !== null ? s.events.impact - s.events.top : null, 2)}</td>
                         <td className="py-1.5 pr-3">{formatNumber(s.leadPctAtImpact, 1)}</td>
                       </tr>
                     );

@@ -5,7 +5,7 @@
 import { StancePathChart } from '@/components/charts/stance-path-chart';
 import { HeelShareChart, LeadShareChart } from '@/components/charts/swing-charts';
 import { phaseLabels } from '@/components/swings/labels';
-import type { SwingView } from '@/components/swings/swing-schemas';
+import type { SwingView } from '@/lib/contracts/swings';
 import { eventRecord, sensorLayout, traceSeries } from '@/components/swings/swing-view-model';
 
 const CHART_W = 640;

@@ -2,7 +2,7 @@ import { requireRole } from '@/lib/auth/roles';
 import { assignDrill, listAssignments } from '@/lib/drills/store';
 import { ForbiddenError, json, parseId, readJson, withErrors } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
-import { assignmentInputSchema } from '@/lib/validations/drill';
+import { assignmentInputSchema } from '@/lib/contracts/drills';
 
 export const dynamic = 'force-dynamic';
 type Context = { params: Promise<{ id: string }> };

@@ -2,7 +2,7 @@ import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { requireSwingAccess } from '@/lib/swings/access';
 import { createAnnotation, listAnnotations } from '@/lib/swings/annotations';
-import { annotationCreateSchema } from '@/lib/validations/swing';
+import { annotationCreateSchema } from '@/lib/contracts/swings';
 
 export const dynamic = 'force-dynamic';
 

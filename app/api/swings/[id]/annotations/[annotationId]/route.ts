@@ -2,7 +2,7 @@ import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { requireSwingAccess } from '@/lib/swings/access';
 import { deleteAnnotation, updateAnnotation } from '@/lib/swings/annotations';
-import { annotationPatchSchema } from '@/lib/validations/swing';
+import { annotationPatchSchema } from '@/lib/contracts/swings';
 
 export const dynamic = 'force-dynamic';
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 
-// One schema for the athlete form (client, via zodResolver) and for POST/PATCH /api/athletes (server).
+// The athletes API's contract. Requests: one schema for the athlete form (client, via zodResolver) and for
+// POST/PATCH /api/athletes (server). Responses: lib/db/athletes.ts returns these types, the client parses them.
 // Form inputs turn empty strings into null before validation (see components/athletes/athlete-form.tsx).
 
 export const handednessValues = ['right', 'left'] as const;
@@ -60,3 +61,30 @@ export function ageOn(dateOfBirth: string, today: string): number {
 export function isMinor(dateOfBirth: string | null, today = new Date().toISOString().slice(0, 10)): boolean {
   return dateOfBirth !== null && ageOn(dateOfBirth, today) < 18;
 }
+
+// --- responses ---
+export const athleteSummarySchema = z.object({
+  id: z.number().int(),
+  displayName: z.string(),
+  handedness: z.enum(handednessValues),
+  stanceWidthMm: z.number().int(),
+  dateOfBirth: z.string().nullable(),
+  homeClub: z.string().nullable(),
+  lastSession: z.object({ date: z.string(), context: z.enum(sessionContextValues) }).nullable(),
+});
+
+export const athleteListResponseSchema = z.object({ athletes: z.array(athleteSummarySchema) });
+export const athleteResponseSchema = z.object({ athlete: athleteSummarySchema });
+
+export const practiceSessionSchema = z.object({
+  id: z.number().int(),
+  athleteId: z.number().int(),
+  sessionDate: z.string(),
+  context: z.enum(sessionContextValues),
+  location: z.string().nullable(),
+  notes: z.string().nullable(),
+});
+export const sessionListResponseSchema = z.object({ sessions: z.array(practiceSessionSchema) });
+
+export type AthleteSummary = z.infer<typeof athleteSummarySchema>;
+export type PracticeSession = z.infer<typeof practiceSessionSchema>;

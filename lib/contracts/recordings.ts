@@ -1,21 +1,26 @@
 import { z } from 'zod';
-import { eventNames } from '@/components/swings/swing-schemas';
+import { recordingOptionsSchema } from '@/lib/recordings/options';
+import { EVENT_NAMES } from '@/lib/signal/types';
 
-// Shapes of the recordings API (lib/recordings/views.ts, lib/recordings/upload.ts), checked on the client by
-// lib/fetcher.ts. Only the fields the pages use are required; the rest pass through.
+// The recordings API's responses (lib/recordings/views.ts, lib/recordings/upload.ts build them; the client parses
+// them through lib/fetcher.ts).
 
 export const recordingStatusValues = ['received', 'processing', 'ready', 'failed'] as const;
 export type RecordingStatus = (typeof recordingStatusValues)[number];
 
-const eventTimes = z.object(Object.fromEntries(eventNames.map((n) => [n, z.number().nullable()])) as Record<(typeof eventNames)[number], z.ZodNullable<z.ZodNumber>>);
+const perEvent = <S extends z.ZodType>(schema: S) => z.object(Object.fromEntries(EVENT_NAMES.map((n) => [n, schema])) as Record<(typeof EVENT_NAMES)[number], S>);
+const eventTimes = perEvent(z.number().nullable());
+const eventSource = z.object({ source: z.enum(['auto', 'manual']), autoTimeS: z.number().nullable(), misfit: z.boolean() });
 
 export const swingSummarySchema = z.object({
   id: z.number().int(),
   recordingId: z.number().int(),
   index: z.number().int(),
-  startS: z.number().nullable(),
-  endS: z.number().nullable(),
+  startS: z.number(),
+  endS: z.number(),
   events: eventTimes,
+  /** per event: detected or moved by hand, the detector's own time, and whether a reprocess no longer fits it */
+  eventSources: perEvent(eventSource),
   impactSource: z.enum(['marker', 'detected']),
   tempoRatio: z.number().nullable(),
   leadPctAtImpact: z.number().nullable(),
@@ -31,10 +36,15 @@ const recordingBase = {
   sessionId: z.number().int(),
   filename: z.string(),
   byteSize: z.number(),
+  sha256: z.string(),
   status: z.enum(recordingStatusValues),
   error: recordingErrorSchema.nullable(),
+  /** the processing parameters of the last analysis; before one, the requested values */
   parameters: z.record(z.string(), z.unknown()),
+  options: recordingOptionsSchema,
   algorithmVersion: z.string().nullable(),
+  /** the file's metadata lines */
+  recording: z.record(z.string(), z.unknown()).nullable(),
   createdAt: z.string(),
   processedAt: z.string().nullable(),
 };
@@ -49,11 +59,12 @@ export const sessionRecordingsSchema = z.object({
 
 export const uploadResponseSchema = z.object({
   recordings: z.array(
-    z.object({ id: z.number().int(), filename: z.string(), status: z.enum(recordingStatusValues), duplicate: z.boolean().optional(), sessionId: z.number().int() }),
+    z.object({ id: z.number().int(), filename: z.string(), status: z.enum(recordingStatusValues), duplicate: z.boolean(), sessionId: z.number().int() }),
   ),
 });
 
 export type SwingSummary = z.infer<typeof swingSummarySchema>;
+export type UploadResponse = z.infer<typeof uploadResponseSchema>;
 export type RecordingView = z.infer<typeof recordingViewSchema>;
 export type SessionRecordings = z.infer<typeof sessionRecordingsSchema>;
 export type SessionRecording = SessionRecordings['recordings'][number];

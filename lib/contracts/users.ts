@@ -35,3 +35,16 @@ export const updateUserSchema = z
 
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;
+
+// --- responses ---
+export const academyUserSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(roleValues),
+  active: z.boolean(),
+});
+export const userListResponseSchema = z.object({ users: z.array(academyUserSchema) });
+export const userResponseSchema = z.object({ user: academyUserSchema });
+
+export type AcademyUser = z.infer<typeof academyUserSchema>;

@@ -1,0 +1,181 @@
+import { z } from 'zod';
+import { EVENT_NAMES, PHASE_NAMES } from '@/lib/signal/types';
+
+// The swing API's contract: responses of GET/PATCH /api/swings/:id and the annotation routes (lib/db/swings.ts
+// returns these types, the client parses them through lib/fetcher.ts), and the request bodies of PATCH
+// /api/swings/:id and the annotation routes (the viewer's forms use the same schemas through zodResolver).
+
+export const eventNames = EVENT_NAMES;
+export const phaseNames = PHASE_NAMES;
+
+const num = z.number().nullable();
+
+export const swingDetailSchema = z.object({
+  id: z.number().int(),
+  index: z.number().int(),
+  startS: z.number(),
+  endS: z.number(),
+  impactSource: z.enum(['marker', 'detected']),
+  tempoRatio: num,
+  hidden: z.boolean(),
+  stale: z.boolean(),
+  recording: z.object({ id: z.number().int(), filename: z.string(), algorithmVersion: z.string().nullable(), parameters: z.record(z.string(), z.unknown()) }),
+  session: z.object({ id: z.number().int(), sessionDate: z.string(), context: z.enum(['lesson', 'practice', 'on-course']) }),
+  athlete: z.object({ id: z.number().int(), displayName: z.string(), dateOfBirth: z.string().nullable() }),
+  events: z.array(
+    z.object({
+      name: z.enum(eventNames),
+      timeS: z.number(),
+      source: z.enum(['auto', 'manual']),
+      autoTimeS: num,
+      misfit: z.boolean(),
+      leadPct: num,
+      leadHeelPct: num,
+      trailHeelPct: num,
+      copXMm: num,
+      copYMm: num,
+    }),
+  ),
+  phases: z.array(
+    z.object({ name: z.enum(phaseNames), durationS: num, copPathMm: num, peakCopSpeedMmS: num, meanLeadPct: num }),
+  ),
+});
+
+export const swingResponseSchema = z.object({ swing: swingDetailSchema });
+
+export type SwingDetail = z.infer<typeof swingDetailSchema>;
+
+// The viewer's fields of GET/PATCH /api/swings/:id.
+
+export const clubs = ['driver', 'wood', 'hybrid', 'iron-3', 'iron-4', 'iron-5', 'iron-6', 'iron-7', 'iron-8', 'iron-9', 'wedge'] as const;
+export const strikes = ['solid', 'fat', 'thin', 'topped'] as const;
+export const flights = ['push', 'pull', 'slice', 'hook', 'fade', 'draw', 'straight'] as const;
+
+const nullableSeries = z.array(z.number().nullable());
+
+export const swingLabelsSchema = z.object({
+  club: z.enum(clubs).nullable(),
+  strike: z.enum(strikes).nullable(),
+  flight: z.enum(flights).nullable(),
+  tags: z.array(z.string()),
+  rating: z.number().int().min(1).max(5).nullable(),
+  notASwing: z.boolean(),
+});
+
+export const annotationSchema = z.object({
+  id: z.number().int(),
+  authorName: z.string(),
+  authorRole: z.string(),
+  body: z.string(),
+  timeS: z.number().nullable(),
+  phase: z.enum(phaseNames).nullable(),
+  visibility: z.enum(['coach', 'shared']),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+
+export const swingViewSchema = swingDetailSchema.extend({
+  series: z.object({
+    time: z.array(z.number()),
+    leadPct: nullableSeries,
+    leadHeelPct: nullableSeries,
+    trailHeelPct: nullableSeries,
+    copX: nullableSeries,
+    copY: nullableSeries,
+    copSpeed: nullableSeries,
+  }),
+  overview: z.object({ time: z.array(z.number()), leadPct: nullableSeries, copX: nullableSeries }),
+  siblings: z.object({
+    previousId: z.number().int().nullable(),
+    nextId: z.number().int().nullable(),
+    sameAthlete: z.array(z.object({ id: z.number().int(), label: z.string() })),
+  }),
+  layout: z.object({
+    id: z.string(),
+    name: z.string(),
+    foot_length_mm: z.number(),
+    sensors: z.array(z.object({ id: z.string(), foot: z.enum(['left', 'right']), x_mm: z.number(), y_mm: z.number(), area_mm2: z.number(), region: z.enum(['heel', 'toe']).optional() })),
+  }),
+  handedness: z.enum(['right', 'left']),
+  stanceWidthMm: z.number(),
+  sensorFrames: z.array(z.object({ timeS: z.number(), event: z.enum(eventNames), forcesN: z.record(z.string(), z.number().nullable()) })),
+  labels: swingLabelsSchema,
+  annotations: z.array(annotationSchema),
+  corrections: z.array(z.object({ event: z.enum(eventNames), fromS: z.number(), toS: z.number(), byName: z.string(), at: z.string(), kind: z.enum(['move', 'reset']).optional() })),
+  canEdit: z.boolean(),
+});
+
+export const swingViewResponseSchema = z.object({ swing: swingViewSchema });
+export const annotationResponseSchema = z.object({ annotation: annotationSchema });
+
+export type SwingView = z.infer<typeof swingViewSchema>;
+export type SwingLabels = z.infer<typeof swingLabelsSchema>;
+export type Annotation = z.infer<typeof annotationSchema>;
+
+// --- request bodies ---
+// One set of schemas for the swing viewer's forms (client, via zodResolver) and for PATCH /api/swings/:id and the
+// annotation routes (server). Club, strike and flight values are golf trade terms.
+
+export const clubValues = clubs;
+export const strikeValues = strikes;
+export const flightValues = flights;
+export const visibilityValues = ['coach', 'shared'] as const;
+
+export const TAG_MAX_CHARS = 40;
+export const TAGS_MAX = 12; // the viewer's label form uses the same limits (components/swings/label-form-schema.ts)
+export const ANNOTATION_MAX_CHARS = 2000;
+
+const eventTime = z.number({ error: 'Give the event time in seconds.' }).refine(Number.isFinite, { error: 'Give a finite time in seconds.' });
+
+/** Moved event times, seconds on the recording's axis; order and window are checked against the swing (422 events.<name>). */
+export const eventMovesSchema = z.strictObject(
+  Object.fromEntries(eventNames.map((name) => [name, eventTime.optional()])) as Record<(typeof eventNames)[number], z.ZodOptional<typeof eventTime>>,
+  { error: 'Unknown event name: use address, top, transition, impact or finish.' },
+);
+
+export const swingLabelsInputSchema = z.strictObject({
+  club: z.enum(clubValues, { error: 'Choose a club from the list.' }).nullable(),
+  strike: z.enum(strikeValues, { error: 'Choose solid, fat, thin or topped.' }).nullable(),
+  flight: z.enum(flightValues, { error: 'Choose push, pull, slice, hook, fade, draw or straight.' }).nullable(),
+  tags: z
+    .array(
+      z.string({ error: 'A tag is text.' }).trim().min(1, { error: 'A tag cannot be empty.' }).max(TAG_MAX_CHARS, { error: `Use at most ${TAG_MAX_CHARS} characters per tag.` }),
+      { error: 'Tags are a list of words.' },
+    )
+    .max(TAGS_MAX, { error: `Use at most ${TAGS_MAX} tags.` })
+    .transform((tags) => [...new Set(tags)]),
+  rating: z.number({ error: 'Rate from 1 to 5.' }).int({ error: 'Rate with a whole number from 1 to 5.' }).min(1, { error: 'Rate from 1 to 5.' }).max(5, { error: 'Rate from 1 to 5.' }).nullable(),
+  /** set aside from stats and swing lists (swings.hidden); restorable */
+  notASwing: z.boolean({ error: 'notASwing is true or false.' }),
+});
+
+export const swingPatchSchema = z.strictObject({
+  events: eventMovesSchema.optional(),
+  resetEvents: z.union([z.literal('all'), z.array(z.enum(eventNames, { error: 'Unknown event name.' }))]).optional(),
+  labels: swingLabelsInputSchema.partial().optional(),
+});
+
+const annotationBody = z
+  .string({ error: 'Write the note.' })
+  .trim()
+  .min(1, { error: 'Write the note.' })
+  .max(ANNOTATION_MAX_CHARS, { error: `Use at most ${ANNOTATION_MAX_CHARS} characters.` });
+const annotationTime = z.number({ error: 'Give the time in seconds.' }).refine(Number.isFinite, { error: 'Give a finite time in seconds.' }).nullable();
+const annotationPhase = z.enum(phaseNames, { error: 'Choose backswing, transition, downswing or follow-through.' }).nullable();
+const visibility = z.enum(visibilityValues, { error: 'Choose coach-only or shared with the student.' });
+
+const onePin = (v: { timeS?: number | null; phase?: string | null }) => !(v.timeS != null && v.phase != null);
+const pinError = { error: 'Pin the note to a time or to a phase, not both.', path: ['timeS'] };
+
+export const annotationCreateSchema = z
+  .strictObject({ body: annotationBody, timeS: annotationTime.optional(), phase: annotationPhase.optional(), visibility })
+  .refine(onePin, pinError);
+
+export const annotationPatchSchema = z
+  .strictObject({ body: annotationBody.optional(), timeS: annotationTime.optional(), phase: annotationPhase.optional(), visibility: visibility.optional() })
+  .refine(onePin, pinError);
+
+export type SwingPatchInput = z.infer<typeof swingPatchSchema>;
+export type SwingLabelsInput = z.infer<typeof swingLabelsInputSchema>;
+export type AnnotationCreateInput = z.infer<typeof annotationCreateSchema>;
+export type AnnotationPatchInput = z.infer<typeof annotationPatchSchema>;

@@ -11,7 +11,7 @@ import { contextLabels, formatDate } from '@/components/ui/format';
 import { ApiError, sendJson } from '@/lib/fetcher';
 import { bandCreatedSchema } from '@/lib/contracts/bands';
 import { bandFormSchema, type BandFormValues } from './band-form-schema';
-import type { AthleteChoice } from './swing-choices';
+import type { AthleteChoice } from '@/lib/contracts/bands';
 
 const fmt = (v: number | null, d: number, unit = '') => (v == null ? '—' : `${v.toFixed(d)}${unit}`);
 

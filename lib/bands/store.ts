@@ -7,6 +7,7 @@ import { parseStoredSeries } from '@/lib/swings/stored-series';
 import { MIN_BAND_SWINGS, type BandDetail, type BandInput, type BandSummary } from '@/lib/contracts/bands';
 import { ZodError } from 'zod';
 import { BAND_CURVES, BAND_EVENTS, BAND_POINTS, buildBand, unusableReason, type BandData, type SwingCurves } from './build';
+import { jsonColumnOf } from '@/lib/db/values';
 
 // Bands in the database. A coach builds bands from swings of athletes on their roster and sees their own bands and
 // the ones shared within the academy; a student sees the bands made by their coaches (to overlay on their swings).
@@ -81,7 +82,7 @@ export async function createBand(viewer: Viewer, input: BandInput): Promise<{ id
   return { id: Number(id), swingCount: usable.length };
 }
 
-const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+const parse = jsonColumnOf;
 
 function visibleQuery(viewer: Viewer) {
   const q = db('bands as b').join('users as u', 'u.id', 'b.owner_user_id').where('b.academy_id', viewer.academyId);

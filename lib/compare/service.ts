@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
 import type { CompareResponse, ProgressResponse } from '@/lib/contracts/compare';

@@ -54,3 +54,22 @@ export const bandDetailSchema = z.object({
   }),
 });
 export type BandDetail = z.infer<typeof bandDetailSchema>['band'];
+
+/** The swings a coach can pick for a band (the band builder's list, rendered on the server): per athlete, per session. */
+export interface SwingChoice {
+  id: number;
+  index: number;
+  leadPctAtImpact: number | null;
+  tempoRatio: number | null;
+}
+export interface SessionChoice {
+  id: number;
+  date: string;
+  context: string;
+  swings: SwingChoice[];
+}
+export interface AthleteChoice {
+  id: number;
+  displayName: string;
+  sessions: SessionChoice[];
+}

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { toIsoDate } from '@/lib/db/values';
 import type { Viewer } from '@/lib/auth/viewer';
 import { NotFoundError } from '@/lib/http';
 import type { AthleteInput, AthleteListQuery, AthletePatch } from '@/lib/contracts/athletes';

@@ -1,21 +1,10 @@
 import 'server-only';
 import { db } from '@/lib/db/client';
 import type { PracticeSession } from '@/lib/contracts/athletes';
+import { toIsoDate } from '@/lib/db/values';
 
-/**
- * DATE columns arrive either as 'YYYY-MM-DD' strings (dateStrings) or as Date objects at local midnight
- * (mysql2's default); both become 'YYYY-MM-DD' here.
- */
-export function toIsoDate(value: unknown): string | null {
-  if (value === null || value === undefined) return null;
-  if (value instanceof Date) {
-    const y = value.getFullYear();
-    const m = String(value.getMonth() + 1).padStart(2, '0');
-    const d = String(value.getDate()).padStart(2, '0');
-    return `${y}-${m}-${d}`;
-  }
-  return String(value).slice(0, 10);
-}
+// toIsoDate lives in lib/db/values.ts with the other column conversions; re-exported for existing importers.
+export { toIsoDate };
 
 type SessionRow = {
   id: number;

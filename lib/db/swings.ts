@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { jsonColumn, r0, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
 import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
@@ -14,19 +14,8 @@ import { correctionsView, layoutView, overviewView, sensorFramesView, seriesView
 // Numbers are rounded the way `npm run analyze` prints them (lib/recordings/views.ts): times to 3 decimals,
 // percentages and millimetres to 1, mm/s to whole numbers, the tempo ratio to 2, so the page and the CLI can be compared 1:1.
 
-const round = (digits: number) => (v: unknown) => {
-  if (v === null || v === undefined) return null;
-  const p = 10 ** digits;
-  return Math.round(Number(v) * p) / p || 0; // `|| 0` drops -0
-};
-const r3 = round(3);
-const r2 = round(2);
-const r1 = round(1);
-const r0 = round(0);
-
-function jsonColumn(value: unknown): Record<string, unknown> {
-  if (value === null || value === undefined) return {};
-  return (typeof value === 'string' ? JSON.parse(value) : value) as Record<string, unknown>;
+function jsonObject(value: unknown): Record<string, unknown> {
+  return jsonColumn<Record<string, unknown>>(value) ?? {};
 }
 
 /**
@@ -109,7 +98,7 @@ export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{
       id: Number(row.recording_id),
       filename: row.filename,
       algorithmVersion: row.algorithm_version ?? null,
-      parameters: jsonColumn(row.parameters),
+      parameters: jsonObject(row.parameters),
     },
     session: { id: Number(row.session_id), sessionDate: toIsoDate(row.session_date) ?? '', context: row.context },
     athlete: { id: Number(row.athlete_id), displayName: row.display_name, dateOfBirth: toIsoDate(row.date_of_birth) },

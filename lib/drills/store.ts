@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { jsonColumnOf, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess, requireSessionAccess } from '@/lib/recordings/access';
 import { swingFacts } from '@/lib/targets/swing-facts';
@@ -12,7 +12,7 @@ import type { Drill, DrillAssignment } from './types';
 // A coach's own drill library and its assignments. A coach sees and edits their own drills and assigns them to
 // athletes on their roster; a student sees the drills assigned to them and may only mark practice done with a note.
 
-const parse = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) : v) as T;
+const parse = jsonColumnOf;
 
 function toDrill(row: Record<string, any>): Drill {
   return { id: Number(row.id), name: row.name, steps: parse<string[]>(row.steps), addressesChecks: parse(row.addresses_checks), cautions: row.cautions, ownerUserId: Number(row.owner_user_id) };

@@ -9,14 +9,11 @@ import { readStoredRecording } from '@/lib/recordings/stored-text';
 import type { RawFileStore } from '@/lib/storage/types';
 import { failRecordingRows, finishJob, stillOwned, type ClaimedJob } from './queue';
 import { writeResults } from './write-results';
+import { jsonColumn } from '@/lib/db/values';
 
 export type Verdict = { kind: 'ready'; swings: number } | { kind: 'failed'; message: string } | { kind: 'lost' };
 
 type InputProblem = { message: string; line: number | null; column: number | null };
-
-function parseJsonColumn(value: unknown): unknown {
-  return typeof value === 'string' ? JSON.parse(value) : value;
-}
 
 /** Runs the analysis; returns the output, or the input problem that stopped it. */
 export async function analyzeStored(
@@ -26,7 +23,7 @@ export async function analyzeStored(
 ): Promise<{ out: AnalysisOutput } | { problem: InputProblem }> {
   const row = await db('recordings').where({ id: recordingId }).first('storage_key', 'options');
   if (!row) throw new Error(`recording ${recordingId} does not exist`);
-  const options = recordingOptionsSchema.parse(parseJsonColumn(row.options));
+  const options = recordingOptionsSchema.parse(jsonColumn(row.options));
   try {
     const raw = await readStoredRecording(await store.read(row.storage_key), profileOf(options));
     const layout = resolveLayout(options, raw.metadata);

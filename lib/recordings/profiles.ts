@@ -2,13 +2,14 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { importProfileSchema, type ImportProfile } from '@/lib/signal';
+import { jsonColumn } from '@/lib/db/values';
 
 // Import profiles are per coach: saved under a name, reused on later uploads (the same name replaces the old one).
 
 export async function loadProfileOfCoach(viewer: Viewer, id: number): Promise<ImportProfile | null> {
   const row = await db('import_profiles').where({ id, coach_user_id: viewer.id }).first('profile');
   if (!row) return null;
-  return importProfileSchema.parse(typeof row.profile === 'string' ? JSON.parse(row.profile) : row.profile);
+  return importProfileSchema.parse(jsonColumn(row.profile));
 }
 
 export async function saveProfileOfCoach(viewer: Viewer, name: string, profile: ImportProfile): Promise<number> {
@@ -25,6 +26,6 @@ export async function listProfilesOfCoach(viewer: Viewer): Promise<{ id: number;
   return rows.map((row) => ({
     id: Number(row.id),
     name: row.name,
-    profile: importProfileSchema.parse(typeof row.profile === 'string' ? JSON.parse(row.profile) : row.profile),
+    profile: importProfileSchema.parse(jsonColumn(row.profile)),
   }));
 }

@@ -5,6 +5,7 @@ import { enqueueRecording } from '@/lib/jobs/queue';
 import { wakeAppWorker } from '@/lib/jobs/start';
 import type { ReprocessInput } from './fields';
 import { recordingOptionsSchema, type RecordingOptions } from './options';
+import { jsonColumn } from '@/lib/db/values';
 
 /**
  * Queues a new analysis of a stored recording with changed parameters. The current results stay visible until the
@@ -13,7 +14,7 @@ import { recordingOptionsSchema, type RecordingOptions } from './options';
 export async function requestReprocess(recordingId: number, input: ReprocessInput): Promise<{ id: number; status: 'received' }> {
   await db.transaction(async (trx) => {
     const row = await trx('recordings').where({ id: recordingId }).forUpdate().first('options');
-    const current = recordingOptionsSchema.parse(typeof row.options === 'string' ? JSON.parse(row.options) : row.options);
+    const current = recordingOptionsSchema.parse(jsonColumn(row.options));
     const next: RecordingOptions = recordingOptionsSchema.parse({
       layout: input.layout === undefined ? current.layout : input.layout,
       profile: input.profile === undefined ? current.profile : input.profile,

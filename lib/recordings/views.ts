@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { jsonColumn, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { EVENT_NAMES, type EventName } from '@/lib/signal';
 import type { RecordingStatus, RecordingView, SessionRecordings, SwingSummary } from '@/lib/contracts/recordings';
 import type { RecordingOptions } from './options';
@@ -13,14 +13,6 @@ export type { RecordingStatus, RecordingView };
 type SwingView = SwingSummary;
 type SessionRecordingsView = SessionRecordings;
 
-const r3 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 1000) / 1000 || 0);
-const r1 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 10) / 10 || 0);
-const r2 = (v: unknown) => (v === null || v === undefined ? null : Math.round(Number(v) * 100) / 100 || 0);
-
-function jsonColumn<T>(value: unknown): T | null {
-  if (value === null || value === undefined) return null;
-  return (typeof value === 'string' ? JSON.parse(value) : value) as T;
-}
 
 type SwingRow = { id: number; recording_id: number; swing_index: number; start_s: number; end_s: number; impact_source: 'marker' | 'detected'; tempo_ratio: number | null; hidden: boolean; stale: boolean };
 

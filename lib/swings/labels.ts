@@ -2,6 +2,7 @@ import 'server-only';
 import type { Knex } from 'knex';
 import type { SwingLabels } from '@/lib/contracts/swings';
 import type { SwingLabelsInput } from '@/lib/contracts/swings';
+import { jsonColumn } from '@/lib/db/values';
 
 // A swing's labels (swing_labels) and "not a swing", which is swings.hidden so the session's swing list and any
 // stats leave the swing out (GET /api/sessions/:id/recordings reports it as hidden: true); restorable by setting it false.
@@ -10,7 +11,7 @@ export const NO_LABELS: Omit<SwingLabels, 'notASwing'> = { club: null, strike: n
 
 export function labelsOf(row: Record<string, unknown> | undefined, hidden: boolean): SwingLabels {
   if (!row) return { ...NO_LABELS, notASwing: hidden };
-  const tags = typeof row.tags === 'string' ? (JSON.parse(row.tags) as string[]) : [];
+  const tags = jsonColumn<string[]>(row.tags) ?? [];
   return {
     club: (row.club as SwingLabels['club']) ?? null,
     strike: (row.strike as SwingLabels['strike']) ?? null,

@@ -3,14 +3,13 @@ import type { EventName } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { SwingView } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { jsonColumn, toIsoDate } from '@/lib/db/values';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
 import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
 
 // The viewer's parts of GET /api/swings/:id besides the numbers: the swing's full-rate traces, the recording's
 // overview, neighbours for previous/next and the overlay pick-list, the sensor layout and per-sensor forces at events.
 
-const jsonColumn = <T>(v: unknown): T | null => (v === null || v === undefined ? null : ((typeof v === 'string' ? JSON.parse(v) : v) as T));
 // Display rounding: time to 0.1 ms, shares / mm / mm/s to 0.01 (well below what a chart or a reader can tell apart).
 const r4 = (v: number) => Math.round(v * 1e4) / 1e4;
 const r2 = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100 || 0);

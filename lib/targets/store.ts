@@ -5,13 +5,14 @@ import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
 import { athleteAccess } from '@/lib/recordings/access';
 import type { TargetInput } from '@/lib/contracts/targets';
 import type { ClubGroup, Target, TargetCheck } from './types';
+import { jsonColumnOf } from '@/lib/db/values';
 
 // Who sees which targets: a coach sees the academy defaults, their own, and any target for an athlete on their
 // roster; a student sees the defaults, their coaches' general targets and the ones made for them. Coaches edit their
 // own targets and the academy defaults (editable by design); other roles are refused by the routes.
 
 function parseChecks(v: unknown): TargetCheck[] {
-  return (typeof v === 'string' ? JSON.parse(v) : v) as TargetCheck[];
+  return jsonColumnOf<TargetCheck[]>(v);
 }
 
 export function toTarget(row: Record<string, any>): Target {

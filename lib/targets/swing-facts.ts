@@ -1,6 +1,6 @@
 import 'server-only';
 import { db } from '@/lib/db/client';
-import { toIsoDate } from '@/lib/db/practice-sessions';
+import { jsonColumn, toIsoDate } from '@/lib/db/values';
 import { clubGroupOf, type ClubGroup, type Measure, type TargetEvent } from './types';
 import type { EventValues } from './score';
 
@@ -26,8 +26,7 @@ export interface SwingFacts {
 const num = (v: unknown): number | null => (v === null || v === undefined || !Number.isFinite(Number(v)) ? null : Number(v));
 
 function jsonObject(v: unknown): Record<string, unknown> {
-  if (v === null || v === undefined) return {};
-  return (typeof v === 'string' ? JSON.parse(v) : v) as Record<string, unknown>;
+  return jsonColumn<Record<string, unknown>>(v) ?? {};
 }
 
 /** copSide (%) = COP x (mm, + lead) / (stance width / 2) * 100. */

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { BandBuilder } from '@/components/bands/band-builder';
 import { BandList } from '@/components/bands/band-list';
-import { swingChoicesFor } from '@/components/bands/swing-choices';
+import { swingChoicesFor } from '@/lib/bands/swing-choices';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageRole } from '@/lib/auth/roles';
 

@@ -1,7 +1,8 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
-// Three projects: `signal` is pure computation (no database); `charts` the D3 chart helpers and components;
+// Four projects: `signal` is pure computation (no database); `charts` the D3 chart helpers and components;
+// `architecture` the import rules of .dependency-cruiser.cjs;
 // `integration` gets a throwaway MariaDB from tests/setup/global-db.ts (started once per run, its own data dir and
 // port, stopped at the end). Timeouts are generous safety limits for a loaded 2-core machine, not speed checks.
 export default defineConfig({
@@ -28,6 +29,15 @@ export default defineConfig({
           include: ['tests/charts/**/*.test.ts', 'tests/charts/**/*.test.tsx'],
           environment: 'node',
           testTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'architecture',
+          include: ['tests/architecture/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 180_000,
         },
       },
       {

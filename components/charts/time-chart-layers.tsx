@@ -11,7 +11,7 @@ import { bandPath, linePath } from './lib/paths';
 import { phaseLabel, phaseSpans } from './lib/phase-bands';
 import type { NumArray } from './lib/types';
 import { chartGeometry, FONT_PX, LABEL_ROW_PX, MARGIN } from './time-chart-geometry';
-import type { TimeSeriesChartProps } from './time-series-chart';
+import type { TimeSeriesChartProps } from './time-series-chart-props';
 
 export type LayerProps = Omit<TimeSeriesChartProps, 'cursorTime' | 'onCursor' | 'onEventDragStart' | 'onEventDrag' | 'onEventDragEnd' | 'onEventNudge' | 'title' | 'description'>;
 

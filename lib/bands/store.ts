@@ -1,8 +1,8 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess } from '@/lib/recordings/access';
+import { NotFoundError } from '@/lib/http';
+import { requireBand, requireSwingsToUse } from '@/lib/auth/access';
 import { parseStoredSeries } from '@/lib/swings/stored-series';
 import { MIN_BAND_SWINGS, type BandDetail, type BandInput, type BandSummary } from '@/lib/contracts/bands';
 import { ZodError } from 'zod';
@@ -52,10 +52,7 @@ function tooFew(message: string): ZodError {
 
 export async function createBand(viewer: Viewer, input: BandInput): Promise<{ id: number; swingCount: number }> {
   const ids = [...new Set(input.swingIds)];
-  const owners = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').whereIn('s.id', ids).select('s.id', 'r.athlete_id');
-  for (const o of owners) {
-    if ((await athleteAccess(viewer, Number(o.athlete_id))) !== 'coach') throw new ForbiddenError(`Swing ${o.id} belongs to an athlete who is not on your roster.`);
-  }
+  await requireSwingsToUse(viewer, ids);
   const { usable, unusable } = await loadSwingCurves(ids);
   if (usable.length < MIN_BAND_SWINGS) {
     const why = unusable.map((u) => `swing ${u.id}: ${u.reason}`).join('; ');
@@ -119,12 +116,11 @@ export interface BandView extends BandData {
   createdAt: string;
 }
 
-/** 404 unknown, 403 not visible to the viewer. */
+/** 404 for an unknown band and for one the viewer does not see (lib/auth/access.ts requireBand). */
 export async function getBand(viewer: Viewer, id: number): Promise<BandView> {
-  const exists = await db('bands').where({ id }).first('id');
-  if (!exists) throw new NotFoundError('No band with this id.');
+  await requireBand(viewer, id, 'read');
   const r = await visibleQuery(viewer).where('b.id', id).first('b.*', 'u.name as owner_name');
-  if (!r) throw new ForbiddenError('This band is private to another coach.');
+  if (!r) throw new NotFoundError('No band with this id.');
   const data = parse<BandData>(r.data);
   const fix = (a: (number | null)[]) => a.map((v) => (v === null ? NaN : v));
   for (const c of BAND_CURVES) {
@@ -155,8 +151,6 @@ export function bandJson(b: BandView): BandDetail {
 }
 
 export async function deleteBand(viewer: Viewer, id: number): Promise<void> {
-  const row = await db('bands').where({ id }).first('owner_user_id');
-  if (!row) throw new NotFoundError('No band with this id.');
-  if (Number(row.owner_user_id) !== viewer.id) throw new ForbiddenError('Only the coach who built this band can delete it.');
+  await requireBand(viewer, id, 'write');
   await db('bands').where({ id }).delete();
 }

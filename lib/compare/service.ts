@@ -2,8 +2,7 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/values';
-import { ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess } from '@/lib/recordings/access';
+import { requireAthlete } from '@/lib/auth/access';
 import type { CompareResponse, ProgressResponse } from '@/lib/contracts/compare';
 import { buildBand, BAND_CURVES, type BandData } from '@/lib/bands/build';
 import { loadSwingCurves } from '@/lib/bands/store';
@@ -14,12 +13,8 @@ import type { ClubGroup, Target } from '@/lib/targets/types';
 import { compareSets } from './compare';
 import { progressBySession } from './progress';
 
-// The athlete's coach or the student themself; everyone else 403, unknown athlete 404.
-async function requireAthleteRead(viewer: Viewer, athleteId: number): Promise<void> {
-  const exists = await db('athletes').where({ id: athleteId }).first('id');
-  if (!exists) throw new NotFoundError('No athlete with this id.');
-  if (!(await athleteAccess(viewer, athleteId))) throw new ForbiddenError('This athlete is not one you see.');
-}
+// The athlete's coach or the student themself; for everyone else the athlete does not exist (404).
+const requireAthleteRead = (viewer: Viewer, athleteId: number) => requireAthlete(viewer, athleteId, 'read');
 
 function curvesJson(b: BandData) {
   const out = (a: number[]) => a.map((v) => (Number.isFinite(v) ? v : null));

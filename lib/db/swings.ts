@@ -3,7 +3,7 @@ import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { jsonColumn, r0, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess } from '@/lib/recordings/access';
+import { athleteAccess } from '@/lib/auth/access';
 import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { listAnnotations } from '@/lib/swings/annotations';
 import { labelsOf } from '@/lib/swings/labels';
@@ -77,7 +77,7 @@ export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{
     );
   if (!row) throw new NotFoundError('No swing with this id.');
   const access = await athleteAccess(viewer, Number(row.athlete_id));
-  if (!access) throw new ForbiddenError('This swing belongs to an athlete you do not see.');
+  if (!access) throw new NotFoundError('No swing with this id.');
 
   const [events, values, phases] = await Promise.all([
     db('swing_events').where({ swing_id: swingId }).select('name', 'time_s', 'source', 'auto_time_s', 'misfit'),

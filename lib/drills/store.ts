@@ -3,7 +3,7 @@ import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { jsonColumnOf, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess, requireSessionAccess } from '@/lib/recordings/access';
+import { requireAssignment, requireAthlete, requireDrillToWrite, requireSession } from '@/lib/auth/access';
 import { swingFacts } from '@/lib/targets/swing-facts';
 import type { DrillInput } from '@/lib/contracts/drills';
 import { checkMoves, type CheckMove } from './report';
@@ -45,12 +45,7 @@ export async function createDrill(viewer: Viewer, input: DrillInput): Promise<Dr
   return toDrill(await db('drills').where({ id }).first());
 }
 
-async function ownDrill(viewer: Viewer, id: number): Promise<Record<string, any>> {
-  const row = await db('drills').where({ id }).first();
-  if (!row) throw new NotFoundError('No drill with this id.');
-  if (Number(row.owner_user_id) !== viewer.id) throw new ForbiddenError('This drill is in another coach’s library.');
-  return row;
-}
+const ownDrill = requireDrillToWrite;
 
 export async function updateDrill(viewer: Viewer, id: number, input: Partial<DrillInput>): Promise<Drill> {
   await ownDrill(viewer, id);
@@ -98,7 +93,7 @@ export async function listAssignments(viewer: Viewer, athleteId?: number): Promi
 }
 
 export async function assignDrill(viewer: Viewer, athleteId: number, drillId: number, dueDate: string, today: string): Promise<DrillAssignment> {
-  if ((await athleteAccess(viewer, athleteId)) !== 'coach') throw new ForbiddenError('This athlete is not on your roster, so you cannot assign drills to them.');
+  await requireAthlete(viewer, athleteId, 'write');
   await ownDrill(viewer, drillId);
   const [id] = await db('drill_assignments').insert({ drill_id: drillId, athlete_id: athleteId, assigned_by: viewer.id, assigned_at: today, due_date: dueDate });
   return toAssignment(await assignmentQuery().where('a.id', id).first());
@@ -106,10 +101,7 @@ export async function assignDrill(viewer: Viewer, athleteId: number, drillId: nu
 
 /** Student: own assignment, practiceDone + note only. Coach of the athlete: dueDate (and may also reset done). */
 export async function updateAssignment(viewer: Viewer, id: number, patch: { practiceDone?: boolean; studentNote?: string; dueDate?: string }): Promise<DrillAssignment> {
-  const row = await db('drill_assignments').where({ id }).first();
-  if (!row) throw new NotFoundError('No drill assignment with this id.');
-  const access = await athleteAccess(viewer, Number(row.athlete_id));
-  if (!access) throw new ForbiddenError('This drill was given to an athlete you do not see.');
+  const { access } = await requireAssignment(viewer, id);
   const columns: Record<string, unknown> = {};
   if (access === 'student') {
     if (patch.dueDate !== undefined) throw new ForbiddenError('Only your coach can move the due date; you can mark practice done and add a note.');
@@ -135,7 +127,7 @@ export interface DrillReport {
 
 /** Assignments given on or before the session's date, with the move of each check they address. */
 export async function drillReport(viewer: Viewer, sessionId: number): Promise<DrillReport> {
-  const { athleteId } = await requireSessionAccess(viewer, sessionId);
+  const { athleteId } = await requireSession(viewer, sessionId, 'read');
   const session = await db('practice_sessions').where({ id: sessionId }).first('session_date');
   const sessionDate = toIsoDate(session.session_date) ?? '';
   const rows = (await assignmentQuery().where('a.athlete_id', athleteId)).map(toAssignment).filter((a) => a.assignedAt <= sessionDate);

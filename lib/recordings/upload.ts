@@ -9,7 +9,7 @@ import { getEnv } from '@/lib/env';
 import { enqueueRecording } from '@/lib/jobs/queue';
 import { wakeAppWorker } from '@/lib/jobs/start';
 import { getStore } from '@/lib/storage';
-import { requireCoachOf } from './access';
+import { requireAthlete } from '@/lib/auth/access';
 import { uploadFieldsSchema, type UploadFields } from './fields';
 import { BadUploadError, readMultipart, type ReceivedFile } from './multipart';
 import type { RecordingOptions } from './options';
@@ -110,7 +110,7 @@ export async function receiveRecordings(viewer: Viewer, request: Request): Promi
   const form = await readMultipart(request, { maxFileBytes: env.MAX_UPLOAD_BYTES, maxFiles: env.MAX_UPLOAD_FILES }, join(env.STORAGE_DIR, '.incoming'));
   try {
     const fields = uploadFieldsSchema.parse(form.fields);
-    await requireCoachOf(viewer, fields.athleteId);
+    await requireAthlete(viewer, fields.athleteId, 'write');
     if (form.files.length === 0) throw new BadUploadError('no_file', 'No file was sent; add at least one file part named "file".');
     const options = await optionsFor(viewer, fields);
     const sessionId = await sessionFor(viewer, fields);

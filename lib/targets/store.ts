@@ -2,7 +2,7 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess } from '@/lib/recordings/access';
+import { requireAthlete, requireTargetToWrite } from '@/lib/auth/access';
 import type { TargetInput } from '@/lib/contracts/targets';
 import type { ClubGroup, Target, TargetCheck } from './types';
 import { jsonColumnOf } from '@/lib/db/values';
@@ -86,7 +86,7 @@ function columns(input: Partial<TargetInput>): Record<string, unknown> {
 
 async function requireAthleteOnRoster(viewer: Viewer, athleteId: number | null | undefined): Promise<void> {
   if (athleteId === null || athleteId === undefined) return;
-  if ((await athleteAccess(viewer, athleteId)) !== 'coach') throw new ForbiddenError('This athlete is not on your roster, so you cannot set targets for them.');
+  await requireAthlete(viewer, athleteId, 'write');
 }
 
 export async function createTarget(viewer: Viewer, input: TargetInput): Promise<Target> {
@@ -95,13 +95,7 @@ export async function createTarget(viewer: Viewer, input: TargetInput): Promise<
   return toTarget(await db('targets').where({ id }).first());
 }
 
-async function editable(viewer: Viewer, id: number): Promise<Record<string, any>> {
-  const row = await db('targets').where({ id }).first();
-  if (!row) throw new NotFoundError('No target with this id.');
-  if (Number(row.academy_id) !== viewer.academyId) throw new ForbiddenError('This target belongs to another academy.');
-  if (!row.is_default && Number(row.owner_user_id) !== viewer.id) throw new ForbiddenError('Only the coach who made this target can change it.');
-  return row;
-}
+const editable = requireTargetToWrite;
 
 export async function updateTarget(viewer: Viewer, id: number, input: Partial<TargetInput>): Promise<Target> {
   const row = await editable(viewer, id);

@@ -4,7 +4,7 @@ import { getBand, loadSwingCurves } from '@/lib/bands/store';
 import type { ScoreResponse } from '@/lib/contracts/targets';
 import { scoreSwingAgainstBand } from '@/lib/bands/build';
 import { ConflictError, NotFoundError } from '@/lib/http';
-import { requireSwingAccess } from '@/lib/swings/access';
+import { requireSwing } from '@/lib/auth/access';
 import { scoreSwing } from './score';
 import { targetForSwing } from './store';
 import { swingFacts } from './swing-facts';
@@ -13,7 +13,7 @@ import { swingFacts } from './swing-facts';
 // else its coach's, else the academy default; no club label scores as irons) and, with ?band=, against a band.
 // The band's top-level numbers are the lead % curve; byCurve has all four curves.
 export async function scoreSwingForViewer(viewer: Viewer, swingId: number, bandId: number | null): Promise<ScoreResponse> {
-  await requireSwingAccess(viewer, swingId, 'read');
+  await requireSwing(viewer, swingId, 'read');
   const [facts] = await swingFacts({ swingIds: [swingId] });
   if (!facts) throw new NotFoundError('No swing with this id.');
   const target = await targetForSwing(facts.athleteId, viewer.academyId, facts.clubGroup);

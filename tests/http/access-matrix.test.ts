@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 
-// Every route handler of issue 2 x every role (+ no session). Expected statuses follow the access rules:
+// Every route handler of issue 2 (and the athlete routes added since) x every role (+ no session). Expected statuses follow the access rules:
 // - no session -> 401 JSON; a role without access -> 403 JSON;
 // - an athlete outside the viewer's scope (coach B asking for coach A's athlete, a student asking for someone
 //   else) -> 404, not 403: the API does not confirm that ids on other rosters exist.
@@ -41,6 +41,12 @@ const cases: Case[] = [
   { method: 'PATCH', path: '/api/athletes/1', body: () => ({ stanceWidthMm: 380 }), expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 } },
   { method: 'GET', path: '/api/athletes/1/sessions', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
   { method: 'GET', path: '/api/athletes/999999', expected: { none: 401, admin: 403, coach: 404, coach2: 404, student: 404, researcher: 403 } },
+  // compare and progress answered 403 for an existing id and 404 for an unknown one; now 404 for both (lib/auth/access.ts)
+  { method: 'GET', path: '/api/athletes/1/compare?a=context:lesson&b=context:practice&metrics=impact.leadPct', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
+  { method: 'GET', path: '/api/athletes/999999/compare?a=context:lesson&b=context:practice&metrics=impact.leadPct', expected: { none: 401, admin: 403, coach: 404, coach2: 404, student: 404, researcher: 403 } },
+  { method: 'GET', path: '/api/athletes/1/progress?metrics=impact.leadPct', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
+  { method: 'GET', path: '/api/athletes/999999/progress?metrics=impact.leadPct', expected: { none: 401, admin: 403, coach: 404, coach2: 404, student: 404, researcher: 403 } },
+  { method: 'GET', path: '/api/athletes/1/drill-assignments', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
   { method: 'GET', path: '/api/athletes/not-a-number', expected: { none: 401, admin: 403, coach: 404, coach2: 404, student: 404, researcher: 403 } },
   { method: 'GET', path: '/api/users', expected: { none: 401, admin: 200, coach: 403, coach2: 403, student: 403, researcher: 403 } },
   { method: 'POST', path: '/api/users', body: newUser, expected: { none: 401, admin: 201, coach: 403, coach2: 403, student: 403, researcher: 403 } },
@@ -80,6 +86,49 @@ describe('access matrix', () => {
         }
       });
     }
+  }
+});
+
+// One answer for "not yours": for another coach, an object on someone else's roster or in someone else's library
+// answers exactly like an id that does not exist (same status, same error code and message), so ids cannot be probed.
+describe('another coach cannot tell an existing id from an unknown one', () => {
+  const UNKNOWN = 999999;
+  const probes: { what: string; method: 'GET' | 'PATCH' | 'DELETE' | 'POST'; path: (id: number) => string; body?: unknown; id: () => Promise<number> }[] = [
+    { what: 'athlete', method: 'GET', path: (id) => `/api/athletes/${id}`, id: async () => 1 },
+    { what: 'athlete (compare)', method: 'GET', path: (id) => `/api/athletes/${id}/compare?a=context:lesson&b=context:practice&metrics=impact.leadPct`, id: async () => 1 },
+    { what: 'athlete (progress)', method: 'GET', path: (id) => `/api/athletes/${id}/progress?metrics=impact.leadPct`, id: async () => 1 },
+    { what: 'session', method: 'GET', path: (id) => `/api/sessions/${id}/recordings`, id: async () => 1 },
+    { what: 'session (drill report)', method: 'GET', path: (id) => `/api/sessions/${id}/drill-report`, id: async () => 1 },
+    { what: 'recording', method: 'GET', path: (id) => `/api/recordings/${id}`, id: async () => (await firstOfAda()).recordingId },
+    { what: 'swing', method: 'GET', path: (id) => `/api/swings/${id}`, id: async () => (await firstOfAda()).swingId },
+    { what: 'swing (score)', method: 'GET', path: (id) => `/api/swings/${id}/score`, id: async () => (await firstOfAda()).swingId },
+    { what: 'target', method: 'PATCH', path: (id) => `/api/targets/${id}`, body: { name: 'Probe' }, id: async () => 5 },
+    { what: 'drill', method: 'PATCH', path: (id) => `/api/drills/${id}`, body: { name: 'Probe' }, id: async () => 1 },
+    { what: 'drill assignment', method: 'PATCH', path: (id) => `/api/drill-assignments/${id}`, body: { dueDate: '2026-12-24' }, id: async () => 1 },
+  ];
+  let ada: { recordingId: number; swingId: number } | undefined;
+  async function firstOfAda() {
+    if (!ada) {
+      const res = await sessions.get('coach')!.json('/api/sessions/1/recordings');
+      const body = res.body as { recordings: { id: number }[]; swings: { id: number }[] };
+      ada = { recordingId: body.recordings[0].id, swingId: body.swings[0].id };
+    }
+    return ada;
+  }
+  for (const probe of probes) {
+    it(`${probe.what}: coach2 gets the same 404 for coach@'s ${probe.what} as for an unknown id`, async () => {
+      const coach2 = sessions.get('coach2')!;
+      const init: RequestInit = { method: probe.method };
+      if (probe.body) {
+        init.body = JSON.stringify(probe.body);
+        init.headers = { 'content-type': 'application/json' };
+      }
+      const existing = await coach2.json(probe.path(await probe.id()), init);
+      const unknown = await coach2.json(probe.path(UNKNOWN), init);
+      expect(existing.status).toBe(404);
+      expect(unknown.status).toBe(404);
+      expect(existing.body).toEqual(unknown.body);
+    });
   }
 });
 

@@ -65,7 +65,7 @@ afterAll(async () => {
 
 describe('GET /api/swings/:id/score', () => {
   it('role matrix: the same rules as the swing', async () => {
-    await matrix('GET', `/api/swings/${lessonSwings[0]}/score`, undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
+    await matrix('GET', `/api/swings/${lessonSwings[0]}/score`, undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
     expect((await send('coach', 'GET', '/api/swings/999999/score')).status).toBe(404);
   });
 
@@ -99,7 +99,7 @@ describe('bands', () => {
 
   it('POST /api/bands role matrix: 201 { id, swingCount } for the coach', async () => {
     const body = () => ({ name: 'Ada lesson model', swingIds: lessonSwings.slice(0, 3) });
-    await matrix('POST', '/api/bands', body, { none: 401, admin: 403, coach: 201, coach2: 403, student: 403, researcher: 403 });
+    await matrix('POST', '/api/bands', body, { none: 401, admin: 403, coach: 201, coach2: 404, student: 403, researcher: 403 });
     const res = await send('coach', 'POST', '/api/bands', body());
     expect(res.status).toBe(201);
     expect(res.body).toEqual({ id: expect.any(Number), swingCount: 3 });
@@ -140,7 +140,7 @@ describe('bands', () => {
 
   it('GET role matrix; the list is the coaches’; a private band is the owner’s (and their students’ by id), a shared one the academy’s coaches’', async () => {
     await matrix('GET', '/api/bands', undefined, { none: 401, admin: 403, coach: 200, coach2: 200, student: 403, researcher: 403 });
-    await matrix('GET', `/api/bands/${bandId}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
+    await matrix('GET', `/api/bands/${bandId}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
     const shared = await send('coach', 'POST', '/api/bands', { name: 'Shared model', swingIds: lessonSwings.slice(0, 3), shared: true, k: 2 });
     const sharedId = (shared.body as { id: number }).id;
     expect((await send('coach2', 'GET', `/api/bands/${sharedId}`)).status).toBe(200);
@@ -160,7 +160,7 @@ describe('bands', () => {
     expect(band.cmc).toBeLessThanOrEqual(1);
     expect(band.byCurve.leadPct).toMatchObject({ insidePct: band.insidePct, rms: band.rms, cmc: band.cmc });
     // a member of the band is closer to its mean than the band's width says on average: RMS below the lead % spread
-    expect((await send('coach2', 'GET', `/api/swings/${lessonSwings[3]}/score?band=${bandId}`)).status).toBe(403);
+    expect((await send('coach2', 'GET', `/api/swings/${lessonSwings[3]}/score?band=${bandId}`)).status).toBe(404);
     expect((await send('coach', 'GET', `/api/swings/${lessonSwings[3]}/score?band=999999`)).status).toBe(404);
   });
 
@@ -177,8 +177,8 @@ describe('compare and progress', () => {
   const q = 'a=context:lesson&b=context:practice&metrics=impact.leadPct,tempoRatio';
 
   it('role matrix', async () => {
-    await matrix('GET', `/api/athletes/1/compare?${q}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
-    await matrix('GET', '/api/athletes/1/progress?metrics=impact.leadPct', undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
+    await matrix('GET', `/api/athletes/1/compare?${q}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
+    await matrix('GET', '/api/athletes/1/progress?metrics=impact.leadPct', undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
     expect((await send('coach', 'GET', '/api/athletes/1/compare?a=context:range&b=context:practice')).status).toBe(422);
   });
 

@@ -135,18 +135,18 @@ describe('POST /api/recordings and GET /api/recordings/:id', () => {
     expect((res.body as any).error.fieldErrors.cutoffHz[0]).toMatch(/at most 50 Hz/);
   });
 
-  it('coach of the athlete and the athlete themself may read; others get 403, nobody signed in 401', async () => {
+  it('coach of the athlete and the athlete themself may read; another coach gets 404 (lib/auth/access.ts), other roles 403, nobody signed in 401', async () => {
     const mine = await upload(coach, { athleteId: 1, sessionId: 1 }, [{ name: 'ada.csv', content: golfCsv }]);
     const id = mine.body.recordings[0].id;
     await settled(coach, id);
     expect((await student.json(`/api/recordings/${id}`)).status).toBe(200);
     expect((await student.json('/api/sessions/1/recordings')).status).toBe(200);
-    expect((await coach2.json(`/api/recordings/${id}`)).status).toBe(403);
-    expect((await coach2.json('/api/sessions/1/recordings')).status).toBe(403);
+    expect((await coach2.json(`/api/recordings/${id}`)).status).toBe(404);
+    expect((await coach2.json('/api/sessions/1/recordings')).status).toBe(404);
     expect((await researcher.json(`/api/recordings/${id}`)).status).toBe(403);
     const reprocess = { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' };
     expect((await student.json(`/api/recordings/${id}/reprocess`, reprocess)).status).toBe(403);
-    expect((await coach2.json(`/api/recordings/${id}/reprocess`, reprocess)).status).toBe(403);
+    expect((await coach2.json(`/api/recordings/${id}/reprocess`, reprocess)).status).toBe(404);
     const anonymous = new HttpSession(env.E2E_BASE_URL);
     expect((await anonymous.json(`/api/recordings/${id}`)).status).toBe(401);
     expect((await anonymous.json('/api/sessions/1/recordings')).status).toBe(401);
@@ -261,10 +261,10 @@ describe('bad input: a 4xx JSON error, or a failed recording saying what and whe
     expect(res.body.error.message).toMatch(/At most 20 files/);
   });
 
-  it('someone else’s athlete: 403; a student or researcher: 403; nobody signed in: 401', async () => {
+  it('someone else’s athlete: 404, as if it did not exist; a student or researcher: 403; nobody signed in: 401', async () => {
     const file = [{ name: 'x.csv', content: golfCsv }];
-    expect((await upload(coach2, { athleteId: 3 }, file)).status).toBe(403);
-    expect((await upload(coach, { athleteId: 4 }, file)).status).toBe(403);
+    expect((await upload(coach2, { athleteId: 3 }, file)).status).toBe(404);
+    expect((await upload(coach, { athleteId: 4 }, file)).status).toBe(404);
     expect((await upload(student, { athleteId: 1 }, file)).status).toBe(403);
     expect((await upload(researcher, { athleteId: 1 }, file)).status).toBe(403);
     expect((await upload(new HttpSession(env.E2E_BASE_URL), { athleteId: 3 }, file)).status).toBe(401);

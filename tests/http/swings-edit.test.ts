@@ -267,8 +267,8 @@ describe('annotations', () => {
 
 describe('role matrix of every swing route', () => {
   // Writes leave the data as they found it where they succeed (rating set to its value, a note of its own).
-  const write = { none: 401, admin: 403, coach: 200, coach2: 403, student: 403, researcher: 403 } as const;
-  const read = { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 } as const;
+  const write = { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 } as const;
+  const read = { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } as const;
   type Case = { name: string; method: string; path: () => Promise<string> | string; body?: unknown; expected: Record<Actor, number> };
   const note = async () => {
     const r = await send('coach', 'POST', `/api/swings/${swingIds[0]}/annotations`, { body: 'matrix note', visibility: 'shared' });

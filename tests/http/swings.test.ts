@@ -99,7 +99,7 @@ describe('GET /api/swings/:id', () => {
     }
   });
 
-  const statusBy: Record<Actor, number> = { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 };
+  const statusBy: Record<Actor, number> = { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 };
   for (const actor of actors) {
     it(`answers ${statusBy[actor]} to ${actor}`, async () => {
       const { status, body } = await sessions.get(actor)!.json(`/api/swings/${swingIds[0]}`);

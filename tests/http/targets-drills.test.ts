@@ -6,7 +6,8 @@ import { HttpSession, signedIn } from './support/http-session';
 import { serverDb } from './support/recordings-http';
 
 // Issue 6's targets and drills routes against the running app: the role matrix of every route (a student reads their
-// own targets and drills and writes only "practice done"; other coaches, admin and researcher 403; no session 401)
+// own targets and drills and writes only "practice done"; admin and researcher 403; another coach 404 for what is not
+// theirs to know (lib/auth/access.ts); no session 401)
 // and what the seeded common-practice defaults and demo drills look like.
 // Demo ids (db/demo/scenario.ts, targets.ts, drills.ts): athlete 1 Ada Fenwick = student@, on coach@'s (user 2)
 // roster; targets 1-4 the academy defaults, 5 coach@'s target for Ada; drills 1-3 coach@'s; assignment 1 = drill 1 to Ada.
@@ -80,7 +81,7 @@ describe('targets', () => {
 
   it('POST /api/targets role matrix, and a target for an athlete only by their coach', async () => {
     await matrix('POST', '/api/targets', () => newTarget(), { none: 401, admin: 403, coach: 201, coach2: 201, student: 403, researcher: 403 });
-    await matrix('POST', '/api/targets', () => newTarget(1), { none: 401, admin: 403, coach: 201, coach2: 403, student: 403, researcher: 403 });
+    await matrix('POST', '/api/targets', () => newTarget(1), { none: 401, admin: 403, coach: 201, coach2: 404, student: 403, researcher: 403 });
   });
 
   it('422 names the field that is wrong', async () => {
@@ -90,10 +91,10 @@ describe('targets', () => {
   });
 
   it('PATCH and DELETE /api/targets/:id role matrix; defaults editable but not deletable', async () => {
-    await matrix('PATCH', '/api/targets/5', () => ({ name: 'Ada: wedges, softer shift' }), { none: 401, admin: 403, coach: 200, coach2: 403, student: 403, researcher: 403 });
+    await matrix('PATCH', '/api/targets/5', () => ({ name: 'Ada: wedges, softer shift' }), { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 });
     await matrix('PATCH', '/api/targets/3', () => ({ description: 'Common practice starting point; edited in a test.' }), { none: 401, admin: 403, coach: 200, coach2: 200, student: 403, researcher: 403 });
     const mine = ((await send('coach', 'POST', '/api/targets', newTarget())).body as { target: { id: number } }).target.id;
-    await matrix('DELETE', `/api/targets/${mine}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 403, researcher: 403 });
+    await matrix('DELETE', `/api/targets/${mine}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 });
     expect((await send('coach', 'DELETE', '/api/targets/1')).status).toBe(409);
     expect((await send('coach', 'PATCH', '/api/targets/999999', { name: 'x' })).status).toBe(404);
   });
@@ -112,17 +113,17 @@ describe('drills', () => {
 
   it('POST, PATCH, DELETE /api/drills role matrix (own library only)', async () => {
     await matrix('POST', '/api/drills', newDrill, { none: 401, admin: 403, coach: 201, coach2: 201, student: 403, researcher: 403 });
-    await matrix('PATCH', '/api/drills/2', () => ({ name: 'Trail-heel coil check' }), { none: 401, admin: 403, coach: 200, coach2: 403, student: 403, researcher: 403 });
+    await matrix('PATCH', '/api/drills/2', () => ({ name: 'Trail-heel coil check' }), { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 });
     const id = ((await send('coach', 'POST', '/api/drills', newDrill())).body as { drill: { id: number } }).drill.id;
-    await matrix('DELETE', `/api/drills/${id}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 403, researcher: 403 });
+    await matrix('DELETE', `/api/drills/${id}`, undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 });
     const bad = await send('coach', 'POST', '/api/drills', { ...newDrill(), cautions: '' });
     expect(bad.status).toBe(422);
     expect(Object.keys((bad.body as any).error.fieldErrors)).toContain('cautions');
   });
 
   it('assignments: the coach assigns, everyone else is refused; lists per role', async () => {
-    await matrix('POST', '/api/athletes/1/drill-assignments', () => ({ drillId: 2, dueDate: '2026-12-20' }), { none: 401, admin: 403, coach: 201, coach2: 403, student: 403, researcher: 403 });
-    await matrix('GET', '/api/athletes/1/drill-assignments', undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
+    await matrix('POST', '/api/athletes/1/drill-assignments', () => ({ drillId: 2, dueDate: '2026-12-20' }), { none: 401, admin: 403, coach: 201, coach2: 404, student: 403, researcher: 403 });
+    await matrix('GET', '/api/athletes/1/drill-assignments', undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
     await matrix('GET', '/api/drill-assignments', undefined, { none: 401, admin: 403, coach: 200, coach2: 200, student: 200, researcher: 403 });
     const own = (await send('student', 'GET', '/api/drill-assignments')).body as { assignments: { athleteId: number }[] };
     expect(own.assignments.length).toBe(2);
@@ -134,7 +135,7 @@ describe('drills', () => {
   });
 
   it('PATCH /api/drill-assignments/:id: the student writes only "practice done" and a note', async () => {
-    await matrix('PATCH', '/api/drill-assignments/1', () => ({ practiceDone: true, studentNote: 'Did three sets.' }), { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 });
+    await matrix('PATCH', '/api/drill-assignments/1', () => ({ practiceDone: true, studentNote: 'Did three sets.' }), { none: 401, admin: 403, coach: 403, coach2: 404, student: 200, researcher: 403 });
     const done = await send('student', 'GET', '/api/drill-assignments');
     const a = (done.body as { assignments: any[] }).assignments.find((x) => x.id === 1);
     expect(a).toMatchObject({ practiceDone: true, studentNote: 'Did three sets.' });
@@ -147,7 +148,7 @@ describe('drills', () => {
   });
 
   it('GET /api/sessions/:id/drill-report role matrix and shape', async () => {
-    await matrix('GET', '/api/sessions/2/drill-report', undefined, { none: 401, admin: 403, coach: 200, coach2: 403, student: 200, researcher: 403 });
+    await matrix('GET', '/api/sessions/2/drill-report', undefined, { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 });
     const r = (await send('coach', 'GET', '/api/sessions/2/drill-report')).body as any;
     expect(r.assignments.map((a: any) => a.drill.id)).toContain(1);
     const a = r.assignments.find((x: any) => x.id === 1);

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { getSwingForViewer } from '@/lib/db/swings';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { requireSwingAccess } from '@/lib/swings/access';
+import { requireSwing } from '@/lib/auth/access';
 import { patchSwing } from '@/lib/swings/patch';
 import { swingPatchSchema } from '@/lib/contracts/swings';
 
@@ -23,7 +23,7 @@ export const GET = withErrors(async (_request: Request, { params }: Context) => 
 export const PATCH = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
   const id = parseId((await params).id);
-  await requireSwingAccess(viewer, id, 'write');
+  await requireSwing(viewer, id, 'write');
   const input = swingPatchSchema.parse(await readJson(request));
   await patchSwing(viewer, id, input);
   return json({ swing: await getSwingForViewer(viewer, id) });

@@ -1,7 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
 import { assignDrill, listAssignments } from '@/lib/drills/store';
-import { ForbiddenError, json, parseId, readJson, withErrors } from '@/lib/http';
-import { athleteAccess } from '@/lib/recordings/access';
+import { json, parseId, readJson, withErrors } from '@/lib/http';
+import { requireAthlete } from '@/lib/auth/access';
 import { assignmentInputSchema } from '@/lib/contracts/drills';
 
 export const dynamic = 'force-dynamic';
@@ -11,7 +11,7 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach', 'student');
   const id = parseId((await params).id);
-  if (!(await athleteAccess(viewer, id))) throw new ForbiddenError('This athlete is not one you see.');
+  await requireAthlete(viewer, id, 'read');
   return json({ assignments: await listAssignments(viewer, id) });
 });
 

@@ -1,6 +1,6 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { requireRecordingAccess } from '@/lib/recordings/access';
+import { requireRecording } from '@/lib/auth/access';
 import { reprocessSchema } from '@/lib/recordings/fields';
 import { requestReprocess } from '@/lib/recordings/reprocess';
 
@@ -12,7 +12,7 @@ type Context = { params: Promise<{ id: string }> };
 export const POST = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
   const id = parseId((await params).id);
-  await requireRecordingAccess(viewer, id, 'write');
+  await requireRecording(viewer, id, 'write');
   const input = reprocessSchema.parse(await readJson(request));
   return json({ recording: await requestReprocess(id, input) }, 202);
 });

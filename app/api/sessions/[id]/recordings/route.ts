@@ -1,6 +1,6 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, NotFoundError, parseId, withErrors } from '@/lib/http';
-import { requireSessionAccess } from '@/lib/recordings/access';
+import { requireSession } from '@/lib/auth/access';
 import { getSessionRecordingsView } from '@/lib/recordings/views';
 
 export const dynamic = 'force-dynamic';
@@ -11,7 +11,7 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach', 'student');
   const id = parseId((await params).id);
-  await requireSessionAccess(viewer, id);
+  await requireSession(viewer, id, 'read');
   const view = await getSessionRecordingsView(id);
   if (!view) throw new NotFoundError('No session with this id.');
   return json(view);

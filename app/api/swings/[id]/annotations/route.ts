@@ -1,6 +1,6 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { requireSwingAccess } from '@/lib/swings/access';
+import { requireSwing } from '@/lib/auth/access';
 import { createAnnotation, listAnnotations } from '@/lib/swings/annotations';
 import { annotationCreateSchema } from '@/lib/contracts/swings';
 
@@ -12,7 +12,7 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach', 'student');
   const id = parseId((await params).id);
-  const { access } = await requireSwingAccess(viewer, id, 'read');
+  const { access } = await requireSwing(viewer, id, 'read');
   return json({ annotations: await listAnnotations(id, access !== 'coach') });
 });
 
@@ -20,7 +20,7 @@ export const GET = withErrors(async (_request: Request, { params }: Context) => 
 export const POST = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
   const id = parseId((await params).id);
-  await requireSwingAccess(viewer, id, 'write');
+  await requireSwing(viewer, id, 'write');
   const input = annotationCreateSchema.parse(await readJson(request));
   return json({ annotation: await createAnnotation(viewer, id, input) }, 201);
 });

@@ -1,6 +1,6 @@
 import { requireRole } from '@/lib/auth/roles';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
-import { requireSwingAccess } from '@/lib/swings/access';
+import { requireSwing } from '@/lib/auth/access';
 import { deleteAnnotation, updateAnnotation } from '@/lib/swings/annotations';
 import { annotationPatchSchema } from '@/lib/contracts/swings';
 
@@ -14,7 +14,7 @@ export const PATCH = withErrors(async (request: Request, { params }: Context) =>
   const { id: rawId, annotationId: rawNote } = await params;
   const id = parseId(rawId);
   const noteId = parseId(rawNote);
-  const { access } = await requireSwingAccess(viewer, id, 'write');
+  const { access } = await requireSwing(viewer, id, 'write');
   const input = annotationPatchSchema.parse(await readJson(request));
   return json({ annotation: await updateAnnotation(viewer, access === 'coach', id, noteId, input) });
 });
@@ -24,7 +24,7 @@ export const DELETE = withErrors(async (_request: Request, { params }: Context) 
   const { id: rawId, annotationId: rawNote } = await params;
   const id = parseId(rawId);
   const noteId = parseId(rawNote);
-  const { access } = await requireSwingAccess(viewer, id, 'write');
+  const { access } = await requireSwing(viewer, id, 'write');
   await deleteAnnotation(viewer, access === 'coach', id, noteId);
   return new Response(null, { status: 204, headers: { 'Cache-Control': 'no-store' } });
 });

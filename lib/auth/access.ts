@@ -1,0 +1,120 @@
+import 'server-only';
+import type { Viewer } from '@/lib/auth/viewer';
+import { db } from '@/lib/db/client';
+import { ForbiddenError, NotFoundError } from '@/lib/http';
+
+// The one access layer: may this viewer read or write this athlete, recording, session, swing, band, target, drill or
+// assignment? Every check answers the same way:
+// - an object the viewer may not know exists (unknown id, another academy, another coach's roster or private library)
+//   -> 404 with the same message as an unknown id, so an outsider cannot tell which ids exist;
+// - an object the viewer sees but may not change (a student's own swing, a shared band of another coach, a coach
+//   marking practice done) -> 403, which tells them nothing new.
+// Roles are checked before this (lib/auth/roles.ts requireRole): an admin or researcher never reaches these checks.
+//
+// Who sees what: a coach sees the athletes linked to them (coach_athletes, same academy) and everything recorded for
+// them; a student sees their own athlete (athletes.user_id); bands, targets and drills have their own rules below.
+
+export type Need = 'read' | 'write';
+export type AthleteAccess = 'coach' | 'student';
+
+/** How the viewer relates to an athlete: their coach, the athlete themself, or null (not theirs to know). */
+export async function athleteAccess(viewer: Viewer, athleteId: number): Promise<AthleteAccess | null> {
+  const athlete = await db('athletes').where({ id: athleteId, academy_id: viewer.academyId }).first('id', 'user_id');
+  if (!athlete) return null;
+  if (viewer.role === 'coach') {
+    const link = await db('coach_athletes').where({ coach_user_id: viewer.id, athlete_id: athleteId }).first('athlete_id');
+    return link ? 'coach' : null;
+  }
+  if (viewer.role === 'student' && Number(athlete.user_id) === viewer.id) return 'student';
+  return null;
+}
+
+/**
+ * The athlete, read: their coach or the athlete themself; write (record, set targets, assign drills): their coach.
+ * `what` names the object in the 404 message (an athlete by default; a session or swing when reached through one).
+ */
+export async function requireAthlete(viewer: Viewer, athleteId: number, need: Need, what = 'athlete'): Promise<AthleteAccess> {
+  const access = await athleteAccess(viewer, athleteId);
+  if (!access) throw new NotFoundError(`No ${what} with this id.`);
+  if (need === 'write' && access !== 'coach') throw new ForbiddenError(`Only the athlete’s coach can change this ${what}; it is read-only for you.`);
+  return access;
+}
+
+async function requireOwnedBy(viewer: Viewer, athleteId: number | null, need: Need, what: string): Promise<{ athleteId: number; access: AthleteAccess }> {
+  if (athleteId === null) throw new NotFoundError(`No ${what} with this id.`);
+  return { athleteId, access: await requireAthlete(viewer, athleteId, need, what) };
+}
+
+/** A recording: read as its athlete; write (reprocess) as the athlete's coach. */
+export async function requireRecording(viewer: Viewer, recordingId: number, need: Need) {
+  const row = await db('recordings').where({ id: recordingId }).first('athlete_id');
+  return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'recording');
+}
+
+/** A practice session: as its athlete. */
+export async function requireSession(viewer: Viewer, sessionId: number, need: Need) {
+  const row = await db('practice_sessions').where({ id: sessionId }).first('athlete_id');
+  return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'session');
+}
+
+/** A swing: read as its athlete; write (events, labels, notes) as the athlete's coach. */
+export async function requireSwing(viewer: Viewer, swingId: number, need: Need) {
+  const row = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('s.id', swingId).first('r.athlete_id');
+  return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'swing');
+}
+
+/** Every swing of a list, for writing with them (building a band): the first one the viewer does not coach is a 404. */
+export async function requireSwingsToUse(viewer: Viewer, swingIds: number[]): Promise<void> {
+  const owners = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').whereIn('s.id', swingIds).select('s.id', 'r.athlete_id');
+  const coached = new Map<number, boolean>();
+  for (const o of owners) {
+    const athleteId = Number(o.athlete_id);
+    if (!coached.has(athleteId)) coached.set(athleteId, (await athleteAccess(viewer, athleteId)) === 'coach');
+    if (!coached.get(athleteId)) throw new NotFoundError(`No swing with id ${o.id} on your roster.`);
+  }
+}
+
+/**
+ * A band: a coach reads their own and the academy's shared bands; a student reads the bands of their coaches; only
+ * the coach who built it writes (deletes) it.
+ */
+export async function requireBand(viewer: Viewer, bandId: number, need: Need): Promise<void> {
+  const row = await db('bands').where({ id: bandId, academy_id: viewer.academyId }).first('owner_user_id', 'shared');
+  const owner = row ? Number(row.owner_user_id) : null;
+  let visible = false;
+  if (row && viewer.role === 'coach') visible = owner === viewer.id || Boolean(row.shared);
+  else if (row && viewer.role === 'student') {
+    visible = Boolean(
+      await db('coach_athletes as c').join('athletes as a', 'a.id', 'c.athlete_id').where({ 'a.user_id': viewer.id, 'c.coach_user_id': owner }).first('c.coach_user_id'),
+    );
+  }
+  if (!visible) throw new NotFoundError('No band with this id.');
+  if (need === 'write' && owner !== viewer.id) throw new ForbiddenError('Only the coach who built this band can delete it.');
+}
+
+/**
+ * A target, for writing: the academy's defaults (editable by design) and the coach's own targets. Another coach's
+ * target is a 404 unless it was made for an athlete the viewer coaches (then they see it, and get 403).
+ */
+export async function requireTargetToWrite(viewer: Viewer, targetId: number): Promise<Record<string, any>> {
+  const row = await db('targets').where({ id: targetId, academy_id: viewer.academyId }).first();
+  if (!row) throw new NotFoundError('No target with this id.');
+  if (row.is_default || Number(row.owner_user_id) === viewer.id) return row;
+  const forMyAthlete = row.athlete_id !== null && (await athleteAccess(viewer, Number(row.athlete_id))) === 'coach';
+  if (!forMyAthlete) throw new NotFoundError('No target with this id.');
+  throw new ForbiddenError('Only the coach who made this target can change it.');
+}
+
+/** A drill, for writing: the coach's own library only; another coach's drill is a 404. */
+export async function requireDrillToWrite(viewer: Viewer, drillId: number): Promise<Record<string, any>> {
+  const row = await db('drills').where({ id: drillId }).first();
+  if (!row || Number(row.owner_user_id) !== viewer.id) throw new NotFoundError('No drill with this id.');
+  return row;
+}
+
+/** A drill assignment: as its athlete (the student writes practice done and a note; the coach the due date). */
+export async function requireAssignment(viewer: Viewer, assignmentId: number): Promise<{ row: Record<string, any>; access: AthleteAccess }> {
+  const row = await db('drill_assignments').where({ id: assignmentId }).first();
+  const { access } = await requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, 'read', 'drill assignment');
+  return { row, access };
+}

@@ -13,15 +13,15 @@ export class ApiError extends Error {
   }
 }
 
+function apiError(status: number, body: unknown): ApiError {
+  const parsed = errorResponseSchema.safeParse(body);
+  if (parsed.success) return new ApiError(status, parsed.data.error.message, parsed.data.error.fieldErrors);
+  return new ApiError(status, `Request failed with status ${status}.`);
+}
+
 async function parseResponse<S extends z.ZodType>(response: Response, schema: S): Promise<z.infer<S>> {
   const body: unknown = await response.json().catch(() => null);
-  if (!response.ok) {
-    const parsed = errorResponseSchema.safeParse(body);
-    if (parsed.success) {
-      throw new ApiError(response.status, parsed.data.error.message, parsed.data.error.fieldErrors);
-    }
-    throw new ApiError(response.status, `Request failed with status ${response.status}.`);
-  }
+  if (!response.ok) throw apiError(response.status, body);
   const parsed = schema.safeParse(body);
   if (!parsed.success) {
     throw new ApiError(response.status, 'The server sent a response in an unexpected shape.');
@@ -37,10 +37,10 @@ export function fetchJson<S extends z.ZodType>(schema: S) {
   };
 }
 
-/** Send JSON (POST/PATCH) and validate the response. */
+/** Send JSON (POST/PATCH/DELETE) and validate the response. */
 export async function sendJson<S extends z.ZodType>(
   url: string,
-  method: 'POST' | 'PATCH',
+  method: 'POST' | 'PATCH' | 'DELETE',
   body: unknown,
   schema: S,
 ): Promise<z.infer<S>> {
@@ -48,7 +48,18 @@ export async function sendJson<S extends z.ZodType>(
     method,
     headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
     credentials: 'same-origin',
-    body: JSON.stringify(body),
+    body: body === undefined ? undefined : JSON.stringify(body),
   });
+  return parseResponse(response, schema);
+}
+
+/**
+ * DELETE a URL. A 204 (no body) resolves to undefined; a JSON answer is validated against `schema` when one is
+ * given; an error answer throws ApiError with the server's message and field errors, like every other call.
+ */
+export async function deleteJson<S extends z.ZodType>(url: string, schema?: S): Promise<z.infer<S> | undefined> {
+  const response = await fetch(url, { method: 'DELETE', headers: { Accept: 'application/json' }, credentials: 'same-origin' });
+  if (!response.ok) throw apiError(response.status, await response.json().catch(() => null));
+  if (response.status === 204 || schema === undefined) return undefined;
   return parseResponse(response, schema);
 }

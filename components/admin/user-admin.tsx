@@ -2,13 +2,14 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { useForm, type Path } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import useSWR from 'swr';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { roleLabels } from '@/components/ui/format';
-import { ApiError, fetchJson, sendJson } from '@/lib/fetcher';
+import { fetchJson, sendJson } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
 import { userListResponseSchema, userResponseSchema, type AcademyUser } from '@/lib/contracts/users';
 import { createUserSchema, roleValues, type CreateUserInput, type Role } from '@/lib/contracts/users';
 
@@ -31,11 +32,7 @@ function CreateUserForm({ onCreated }: { onCreated: () => void }) {
       reset({ email: '', name: '', password: '', role: 'coach' });
       onCreated();
     } catch (error) {
-      if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0) {
-        for (const [field, messages] of Object.entries(error.fieldErrors)) {
-          setError(field as Path<CreateUserInput>, { type: 'server', message: messages[0] });
-        }
-      } else setFormError(error instanceof Error ? error.message : 'Could not create the account.');
+      setFormError(applyServerErrors(error, setError, { fields: ['email', 'name', 'role', 'password'], fallback: 'Could not create the account.' }));
     }
   }
 

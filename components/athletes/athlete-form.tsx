@@ -3,11 +3,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm, type Path } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
 import { athleteInputSchema, STANCE_WIDTH_MAX_MM, STANCE_WIDTH_MIN_MM, type AthleteInput } from '@/lib/contracts/athletes';
 import { athleteResponseSchema } from '@/lib/contracts/athletes';
 
@@ -37,14 +38,7 @@ export function AthleteForm({ athleteId, initial }: { athleteId?: number; initia
       router.push(`/athletes/${athlete.id}`);
       router.refresh();
     } catch (error) {
-      if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0) {
-        for (const [field, messages] of Object.entries(error.fieldErrors)) {
-          if (field in defaults) setError(field as Path<AthleteInput>, { type: 'server', message: messages[0] });
-          else setFormError(messages[0]);
-        }
-        return;
-      }
-      setFormError(error instanceof Error ? error.message : 'Saving failed.');
+      setFormError(applyServerErrors(error, setError, { fields: Object.keys(defaults), fallback: 'Saving failed.' }));
     }
   }
 

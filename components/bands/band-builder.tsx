@@ -8,9 +8,9 @@ import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
 import { contextLabels, formatDate } from '@/components/ui/format';
-import { ApiError, sendJson } from '@/lib/fetcher';
-import { bandCreatedSchema } from '@/lib/contracts/bands';
-import { bandFormSchema, type BandFormValues } from './band-form-schema';
+import { sendJson } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
+import { bandCreatedSchema, bandInputSchema, type BandInput } from '@/lib/contracts/bands';
 import type { AthleteChoice } from '@/lib/contracts/bands';
 
 const fmt = (v: number | null, d: number, unit = '') => (v == null ? '—' : `${v.toFixed(d)}${unit}`);
@@ -19,8 +19,9 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
   const [athleteId, setAthleteId] = useState<number | null>(athletes[0]?.id ?? null);
   const [result, setResult] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const { register, handleSubmit, watch, setValue, reset, formState: { errors, isSubmitting } } = useForm<BandFormValues>({
-    resolver: zodResolver(bandFormSchema),
+  // the server's own schema (POST /api/bands): the same minimum of swings, the same limits on k and the name
+  const { register, handleSubmit, watch, setValue, reset, setError, formState: { errors, isSubmitting } } = useForm({
+    resolver: zodResolver(bandInputSchema),
     defaultValues: { name: '', k: 1, shared: false, swingIds: [] },
   });
   const picked = watch('swingIds');
@@ -28,7 +29,7 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
 
   const toggle = (id: number) => setValue('swingIds', picked.includes(id) ? picked.filter((x) => x !== id) : [...picked, id], { shouldValidate: picked.length > 0 });
 
-  async function onSubmit(values: BandFormValues) {
+  async function onSubmit(values: BandInput) {
     setFormError(null);
     setResult(null);
     try {
@@ -37,7 +38,7 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
       reset({ name: '', k: values.k, shared: values.shared, swingIds: [] });
       await mutate('/api/bands');
     } catch (e) {
-      setFormError(e instanceof ApiError ? e.message : 'Could not build the band.');
+      setFormError(applyServerErrors(e, setError, { fields: ['name', 'k', 'shared', 'swingIds'], fallback: 'Could not build the band.' }));
     }
   }
 

@@ -4,7 +4,8 @@ import { useState } from 'react';
 import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
+import { serverErrorText } from '@/lib/forms';
 import { assignmentInputSchema } from '@/lib/contracts/drills';
 import { assignmentResponseSchema } from '@/lib/contracts/drills';
 import { ASSIGNMENTS_URL } from './drill-api';
@@ -27,7 +28,7 @@ export function AssignForm({ drillId, drillName, athletes }: { drillId: number; 
       setMsg({ ok: true, text: `Assigned to ${athletes.find((a) => a.id === athleteId)?.displayName ?? 'the player'}.` });
       await mutate(ASSIGNMENTS_URL);
     } catch (e) {
-      setMsg({ ok: false, text: e instanceof ApiError ? e.message : 'Could not assign the drill.' });
+      setMsg({ ok: false, text: serverErrorText(e, 'Could not assign the drill.') });
     } finally {
       setBusy(false);
     }

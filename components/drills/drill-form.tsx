@@ -8,7 +8,8 @@ import { z } from 'zod';
 import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
 import { drillInputSchema } from '@/lib/contracts/drills';
 import { drillResponseSchema } from '@/lib/contracts/drills';
 import { eventLabels, measureLabels, measures, targetEvents } from '@/lib/contracts/targets';
@@ -58,7 +59,8 @@ export function DrillForm() {
       reset({ name: '', stepsText: '', checks: [], cautions: DEFAULT_CAUTION });
       await mutate(DRILLS_URL);
     } catch (e) {
-      setFormError(e instanceof ApiError ? e.message : 'Could not save the drill.');
+      const rename = (path: string) => path.replace(/^steps\b/, 'stepsText').replace(/^addressesChecks\b.*/, 'checks');
+      setFormError(applyServerErrors(e, setError, { fields: ['name', 'stepsText', 'cautions', 'checks'], rename, fallback: 'Could not save the drill.' }));
     }
   }
 

@@ -7,7 +7,8 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { formatDate } from '@/components/ui/format';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
+import { serverErrorText } from '@/lib/forms';
 import { assignmentPatchSchema, assignmentResponseSchema, type DrillAssignment as Assignment } from '@/lib/contracts/drills';
 import { DrillCard } from './drill-card';
 import { ASSIGNMENTS_URL, useAssignments } from './drill-api';
@@ -41,7 +42,7 @@ function PracticeDone({ assignment: a }: { assignment: Assignment }) {
       await sendJson(`${ASSIGNMENTS_URL}/${a.id}`, 'PATCH', parsed.data, assignmentResponseSchema);
       await mutate(ASSIGNMENTS_URL);
     } catch (e) {
-      setErr(e instanceof ApiError ? e.message : 'Could not save.');
+      setErr(serverErrorText(e, 'Could not save.'));
     } finally {
       setBusy(false);
     }

@@ -3,13 +3,13 @@
 // "not a swing" (hidden from the stats, restorable). Saved with PATCH /api/swings/:id { labels }.
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { useForm, type Path } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
-import { ApiError } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
 import { labelFormSchema, toFormValues, toLabels, type LabelFormValues } from './label-form-schema';
 import { clubLabels, flightLabels, strikeLabels } from './labels';
-import { errorText, patchSwing } from './swing-api';
+import { patchSwing } from './swing-api';
 import { clubs, flights, strikes, type SwingLabels, type SwingView } from '@/lib/contracts/swings';
 
 export function LabelsForm({ swingId, labels, onSaved }: { swingId: number; labels: SwingLabels; onSaved: (swing: SwingView) => void }) {
@@ -31,13 +31,7 @@ export function LabelsForm({ swingId, labels, onSaved }: { swingId: number; labe
       setSavedAt(new Date().toLocaleTimeString());
       onSaved(swing);
     } catch (error) {
-      if (error instanceof ApiError && Object.keys(error.fieldErrors).length > 0) {
-        for (const [field, messages] of Object.entries(error.fieldErrors)) {
-          const name = field.replace(/^labels\./, '');
-          if (name in values) setError(name as Path<LabelFormValues>, { type: 'server', message: messages[0] });
-          else setFormError(`${field}: ${messages[0]}`);
-        }
-      } else setFormError(errorText(error));
+      setFormError(applyServerErrors(error, setError, { fields: Object.keys(values), rename: (path: string) => path.replace(/^labels\./, ''), fallback: 'Could not save the labels.' }));
     }
   }
 

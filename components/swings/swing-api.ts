@@ -1,7 +1,6 @@
 // Writes to /api/swings/:id and its annotations, through lib/fetcher.ts (zod-checked answers, ApiError with the
 // server's field errors on 422).
-import { ApiError, sendJson } from '@/lib/fetcher';
-import { errorResponseSchema } from '@/lib/contracts/errors';
+import { ApiError, deleteJson, sendJson } from '@/lib/fetcher';
 import type { EventName } from '@/lib/signal/types';
 import { annotationResponseSchema, swingViewResponseSchema, type Annotation, type SwingLabels } from '@/lib/contracts/swings';
 
@@ -23,12 +22,9 @@ export const createAnnotation = (swingId: number, body: AnnotationInput) =>
 export const updateAnnotation = (swingId: number, annotationId: number, body: Partial<AnnotationInput>) =>
   sendJson(`${swingUrl(swingId)}/annotations/${annotationId}`, 'PATCH', body, annotationResponseSchema);
 
-/** DELETE answers 204 with no body; lib/fetcher.ts only sends POST/PATCH, so the error mapping is repeated here. */
+/** DELETE answers 204 with no body. */
 export async function deleteAnnotation(swingId: number, annotationId: number): Promise<void> {
-  const response = await fetch(`${swingUrl(swingId)}/annotations/${annotationId}`, { method: 'DELETE', credentials: 'same-origin', headers: { Accept: 'application/json' } });
-  if (response.ok) return;
-  const parsed = errorResponseSchema.safeParse(await response.json().catch(() => null));
-  throw new ApiError(response.status, parsed.success ? parsed.data.error.message : `Delete failed with status ${response.status}.`, parsed.success ? parsed.data.error.fieldErrors : {});
+  await deleteJson(`${swingUrl(swingId)}/annotations/${annotationId}`);
 }
 
 /** One line for an error: the server's message plus its field errors ("events.top: ..."). */

@@ -7,7 +7,8 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { mutate } from 'swr';
 import { Button } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
-import { ApiError, sendJson } from '@/lib/fetcher';
+import { sendJson } from '@/lib/fetcher';
+import { applyServerErrors } from '@/lib/forms';
 import { targetInputSchema, type TargetInput } from '@/lib/contracts/targets';
 import { clubGroupLabels, clubGroups, eventLabels, measureLabels, measures, targetEvents, targetResponseSchema, type Target } from '@/lib/contracts/targets';
 
@@ -17,7 +18,7 @@ const cell = `${inputClass} px-2 py-1`;
 export function TargetForm({ target, athletes, onDone }: { target?: Target; athletes: { id: number; displayName: string }[]; onDone: () => void }) {
   const [formError, setFormError] = useState<string | null>(null);
   const [withTempo, setWithTempo] = useState(target?.tempo != null);
-  const { register, control, handleSubmit, formState: { errors, isSubmitting } } = useForm({
+  const { register, control, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm({
     resolver: zodResolver(targetInputSchema),
     defaultValues: {
       name: target ? (target.isDefault ? `${target.name} (my copy)` : target.name) : '',
@@ -40,7 +41,7 @@ export function TargetForm({ target, athletes, onDone }: { target?: Target; athl
       await mutate(TARGETS_URL);
       onDone();
     } catch (e) {
-      setFormError(e instanceof ApiError ? e.message : 'Could not save the target.');
+      setFormError(applyServerErrors(e, setError, { fields: ['name', 'description', 'clubGroup', 'athleteId', 'checks', 'tempo'], fallback: 'Could not save the target.' }));
     }
   }
 

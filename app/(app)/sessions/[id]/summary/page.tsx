@@ -18,7 +18,7 @@ import { getSessionRecordingsView } from '@/lib/recordings/views';
 import { isMinor } from '@/lib/contracts/athletes';
 import './print.css';
 import { PrintButton } from './print-button';
-import { summaryExtras } from './summary-data';
+import { summaryExtras } from '@/lib/swings/summary-extras';
 import { SummaryTraces } from './summary-traces';
 
 export const metadata: Metadata = { title: 'Lesson summary' };

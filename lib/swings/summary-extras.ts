@@ -2,7 +2,8 @@ import 'server-only';
 import { db } from '@/lib/db/client';
 
 // Read-only extras for the lesson summary: each swing's labels (club, rating) and the notes shared with the
-// student. Call only after the athlete access check (the page does); coach-only notes never leave here.
+// student (the lesson summary page, app/(app)/sessions/[id]/summary). Call only after the athlete access check (the
+// page does); coach-only notes never leave here.
 
 export interface SummaryLabels {
   club: string | null;

@@ -4,7 +4,7 @@ import { readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { Knex } from 'knex';
-import { connectionFromUrl } from './lib/db/connection';
+import { knexOptions } from './lib/db/connection';
 import { databaseUrlFor, mariadbConfigFromEnv } from './scripts/lib/mariadb';
 
 const root = dirname(fileURLToPath(import.meta.url));
@@ -41,9 +41,7 @@ export function resolveDatabaseUrl(env: NodeJS.ProcessEnv = process.env): string
 /** Full knex config for a database URL (defaults to resolveDatabaseUrl(), read when the first connection opens). */
 export function knexConfig(databaseUrl?: string): Knex.Config {
   return {
-    client: 'mysql2',
-    connection: () => connectionFromUrl(databaseUrl ?? resolveDatabaseUrl()),
-    pool: { min: 0, max: 3 },
+    ...knexOptions(() => databaseUrl ?? resolveDatabaseUrl(), 3),
     migrations: { migrationSource: new TsMigrationSource(), tableName: 'knex_migrations' },
     // Seeds run under tsx (CLI, scripts), so knex's own loader is fine here; tests call the seed functions directly.
     seeds: { directory: seedsDir, loadExtensions: ['.ts'] },

@@ -1,18 +1,14 @@
 // The one knex client of the app. Cached on globalThis so Next's dev reloads and route bundles share one pool.
 import 'server-only';
-import knex, { type Knex } from 'knex';
+import type { Knex } from 'knex';
 import { getEnv } from '@/lib/env';
-import { connectionFromUrl } from '@/lib/db/connection';
+import { createKnex } from '@/lib/db/connection';
 
 const globalForDb = globalThis as typeof globalThis & { __stancelineDb?: Knex };
 
 function createDb(): Knex {
-  return knex({
-    client: 'mysql2',
-    connection: connectionFromUrl(getEnv().DATABASE_URL),
-    // Small pool: one Node process, a 2-core machine, MariaDB max_connections 60 shared with tests.
-    pool: { min: 0, max: 5 },
-  });
+  // Small pool: one Node process, a 2-core machine, MariaDB max_connections 60 shared with tests.
+  return createKnex(getEnv().DATABASE_URL, 5);
 }
 
 /** The shared knex instance (created on first call). */

@@ -1,6 +1,6 @@
-// mysql2 connection options shared by the app client (lib/db/client.ts) and knexfile.ts, so migrations, seeds,
-// tests and the app see values the same way.
-import type { Knex } from 'knex';
+// mysql2 connection options and the one knex factory, shared by the app client (lib/db/client.ts), the worker pool
+// (lib/jobs/start.ts) and knexfile.ts, so migrations, seeds, tests, the app and the worker see values the same way.
+import knex, { type Knex } from 'knex';
 
 type TypeCastField = { type: string; length: number; string(): string | null };
 
@@ -34,4 +34,18 @@ export function connectionFromUrl(databaseUrl: string): Knex.MySql2ConnectionCon
       return next();
     },
   } as unknown as Knex.MySql2ConnectionConfig; // knex's type predates mysql2's per-type dateStrings
+}
+
+/** Knex options for a database URL (or a function that gives it when the first connection opens) and a pool size. */
+export function knexOptions(databaseUrl: string | (() => string), poolMax: number): Knex.Config {
+  return {
+    client: 'mysql2',
+    connection: typeof databaseUrl === 'string' ? connectionFromUrl(databaseUrl) : () => connectionFromUrl(databaseUrl()),
+    pool: { min: 0, max: poolMax },
+  };
+}
+
+/** The one way a knex client is made: the app's request pool and the worker's own pool differ only in size. */
+export function createKnex(databaseUrl: string, poolMax: number): Knex {
+  return knex(knexOptions(databaseUrl, poolMax));
 }

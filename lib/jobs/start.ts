@@ -1,7 +1,6 @@
 // Starts the one worker of this server process (called from instrumentation.ts). It has its own small pool, so a
 // long results transaction never holds up the connections that serve requests.
-import knex from 'knex';
-import { connectionFromUrl } from '@/lib/db/connection';
+import { createKnex } from '@/lib/db/connection';
 import { getEnv } from '@/lib/env';
 import { getStore } from '@/lib/storage';
 import { startWorker, type Worker } from './worker';
@@ -12,7 +11,7 @@ export function startAppWorker(): Worker | null {
   const env = getEnv();
   if (env.WORKER_ENABLED !== 'true') return null;
   if (globalForWorker.__stancelineWorker) return globalForWorker.__stancelineWorker;
-  const db = knex({ client: 'mysql2', connection: connectionFromUrl(env.DATABASE_URL), pool: { min: 0, max: 2 } });
+  const db = createKnex(env.DATABASE_URL, 2);
   const worker = startWorker({
     db,
     store: getStore(),

@@ -48,7 +48,7 @@ export async function getSwingForViewer(viewer: Viewer, swingId: number): Promis
   };
 }
 
-/** The numbers only (the shape of issue 4's swing page). */
+/** The numbers only (what the swing page's tables show). */
 export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{ detail: SwingDetail; access: 'coach' | 'student' }> {
   const row = await db('swings as s')
     .join('recordings as r', 'r.id', 's.recording_id')

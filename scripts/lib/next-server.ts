@@ -1,5 +1,5 @@
 // Building and serving the Next app: `next build` when sources changed, `next start` as a direct child so its pid
-// is the server itself (see docs/stack-notes.md: killing `npx next start` leaves a next-server behind).
+// is the server itself (killing `npx next start` leaves its next-server child running, so we start and stop the server process itself).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';

@@ -94,7 +94,7 @@ describe('TimeSeriesChart / StancePathChart / ValuesPanel on their own', () => {
     );
     const radii = [...html.matchAll(/data-sensor="(\w+)"[^>]*r="([\d.]+)"/g)].map((m) => ({ id: m[1], r: Number(m[2]) }));
     expect(radii).toHaveLength(16);
-    // at the top of the backswing most weight is on the trail foot (right, for a right-handed golfer: domain.md)
+    // at the top of the backswing most weight is on the trail foot (right, for a right-handed golfer: Ball & Best 2007, J Sports Sci 25(7):757-770 [citation from memory])
     const sum = (foot: string) => radii.filter((d) => d.id.startsWith(foot)).reduce((a, d) => a + d.r, 0);
     expect(sum('R')).toBeGreaterThan(sum('L'));
   });

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
 import { createScratchDatabase, type ScratchDatabase } from './scratch-database';
 
-// What /tmp/schema.md (issue 2) promises about the demo, read back from the database.
+// What the demo scenario (db/demo/scenario.ts) promises, read back from the database.
 let scratch: ScratchDatabase;
 beforeAll(async () => {
   scratch = await createScratchDatabase();

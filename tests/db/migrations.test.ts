@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TsMigrationSource } from '@/knexfile';
 import { createScratchDatabase, listTables, type ScratchDatabase } from './scratch-database';
 
-// Tables of the issue 2 schema, then those of issue 4 (recordings and their results), then issue 5, in migration order.
+// The tables in migration order: people and sessions, then recordings and their results, then the swing viewer's data.
 const APP_TABLES = [
   'academies',
   'users',
@@ -18,12 +18,12 @@ const APP_TABLES = [
   'swing_phase_metrics',
   'swing_event_values',
   'recording_series',
-  // issue 5: the swing viewer's data and the coach's work on swings
+  // the swing viewer's data and the coach's work on swings
   'swing_series',
   'swing_labels',
   'swing_event_corrections',
   'swing_annotations',
-  // issue 6: targets, reference bands, drills
+  // targets, reference bands, drills
   'targets',
   'bands',
   'drills',

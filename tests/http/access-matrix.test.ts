@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 
-// Every route handler of issue 2 (and the athlete routes added since) x every role (+ no session). Expected statuses follow the access rules:
+// Every athlete, user and me route handler (and the athlete routes added since) x every role (+ no session). Expected statuses follow the access rules:
 // - no session -> 401 JSON; a role without access -> 403 JSON;
 // - an athlete outside the viewer's scope (coach B asking for coach A's athlete, a student asking for someone
 //   else) -> 404, not 403: the API does not confirm that ids on other rosters exist.

@@ -13,7 +13,7 @@ import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { signedIn, type HttpSession } from './support/http-session';
 import { serverStore, upload } from './support/recordings-http';
 
-// Kill test (issue 4): the app server process dies (SIGKILL to its whole process group: no clean-up, no graceful
+// Kill test: the app server process dies (SIGKILL to its whole process group: no clean-up, no graceful
 // shutdown) while its in-app worker processes a long recording. The job must be neither lost nor stuck: once its
 // heartbeat is older than JOB_LOCK_TIMEOUT_S, the worker of the restarted server claims it again and the recording
 // ends ready, with the same swings a direct analysis of the file gives.

@@ -12,7 +12,7 @@ import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb, settled, upload } from './support/recordings-http';
 
-// GET /api/swings/:id and the pages of issue 4 (upload, session, swing) by role, against the running app.
+// GET /api/swings/:id and the upload, session and swing pages by role, against the running app.
 // The swing's numbers are compared with `npm run analyze` on the same bytes with the same parameters (the
 // product's own CLI, itself checked against scipy and the generator's truth in tests/signal).
 // Demo ids (db/demo/scenario.ts): athlete 1 Ada Fenwick is student@'s own and on coach@'s roster (sessions 1-3);

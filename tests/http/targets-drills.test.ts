@@ -66,7 +66,8 @@ describe('targets', () => {
     for (const t of defaults) {
       expect(t.commonPractice).toBe(true);
       expect(`${t.name} ${t.description}`).toMatch(/common practice/i);
-      expect(t.description).toMatch(/physician or physiotherapist/); // the caution (domain.md)
+      expect(t.description).toMatch(/physician or physiotherapist/); // the usual caution: see a physician or physiotherapist on pain (common practice; low back pain is the most common golf
+      // complaint: Lindsay & Vandervoort 2014, Asian J Sports Med 5(4):e24289)
     }
     expect(targets.map((t) => t.id)).toContain(5);
   });

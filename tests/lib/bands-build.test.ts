@@ -2,16 +2,17 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { BAND_CURVES, buildBand, meanLandmarks, registerSwingCurve, scoreCurve, scoreSwingAgainstBand, unusableReason, type SwingCurves } from '@/lib/bands/build';
 
-// The band code: registration (Ramsay & Silverman's landmark registration, the worked example of check-values.md),
+// The band code: registration (landmark registration, Ramsay & Silverman, Functional Data Analysis, 2nd ed., ch. 8; the worked example below computed by
+// piecewise-linear interpolation),
 // coverage of mean +- k SD on seeded normal samples (math: P(|Z| <= 1) = 68.27 %, P(|Z| <= 2) = 95.45 %) and the
-// similarity scores (Kadaba et al. 1989 CMC [from memory], worked values in check-values.md).
+// similarity scores (Kadaba et al. 1989, J Orthop Res 7:849, CMC [citation from memory]; the worked values computed from its formula with scipy/numpy).
 
 describe('registration through the band code', () => {
-  it('check-values.md worked example: events [0, 0.80, 1.05, 1.90] s -> [0, 75, 100, 150]', () => {
+  it('landmark registration worked example (Ramsay & Silverman ch. 8): events [0, 0.80, 1.05, 1.90] s -> [0, 75, 100, 150]', () => {
     const time = Array.from({ length: 381 }, (_, i) => i * 0.005); // 0 .. 1.9 s
     const r = registerSwingCurve(time, time, [0, 0.8, 1.05, 1.9], [0, 75, 100, 150], 301); // axis step 0.5
-    expect(r[75]).toBeCloseTo(0.4, 12); // 37.5 -> 0.4 s (check-values.md, Ramsay & Silverman)
-    expect(r[175]).toBeCloseTo(0.925, 12); // 87.5 -> 0.925 s (check-values.md, Ramsay & Silverman)
+    expect(r[75]).toBeCloseTo(0.4, 12); // 37.5 -> 0.4 s (Ramsay & Silverman ch. 8, computed)
+    expect(r[175]).toBeCloseTo(0.925, 12); // 87.5 -> 0.925 s (Ramsay & Silverman ch. 8, computed)
   });
 
   it('landmarks are the mean relative event positions (by hand)', () => {
@@ -76,18 +77,18 @@ describe('similarity of a swing to the band mean', () => {
   const band = { mean: sine, sd: sine.map(() => 1), lower: sine.map((v) => v - 1), upper: sine.map((v) => v + 1) };
   it('identical: CMC 1, RMS 0, all inside', () => {
     const s = scoreCurve(sine, band);
-    expect(s.cmc).toBeCloseTo(1, 10); // check-values.md (Kadaba 1989 [from memory])
+    expect(s.cmc).toBeCloseTo(1, 10); // Kadaba 1989 CMC [from memory]: identical curves give 1
     expect(s.rms).toBe(0);
     expect(s.insidePct).toBe(100);
   });
   it('+0.5 offset: CMC 0.88143, RMS 0.5', () => {
     const s = scoreCurve(sine.map((v) => v + 0.5), band);
-    expect(s.cmc).toBeCloseTo(0.88143, 5); // check-values.md (Kadaba 1989 [from memory])
-    expect(s.rms).toBeCloseTo(0.5, 12); // check-values.md
+    expect(s.cmc).toBeCloseTo(0.88143, 5); // Kadaba 1989 CMC [from memory], +0.5 offset, computed with scipy/numpy
+    expect(s.rms).toBeCloseTo(0.5, 12); // RMS of a constant 0.5 offset is 0.5
   });
   it('2x gain: CMC 0.89498; +0.1 offset: CMC 0.99499', () => {
-    expect(scoreCurve(sine.map((v) => 2 * v), band).cmc).toBeCloseTo(0.89498, 5); // check-values.md
-    expect(scoreCurve(sine.map((v) => v + 0.1), band).cmc).toBeCloseTo(0.99499, 5); // check-values.md
+    expect(scoreCurve(sine.map((v) => 2 * v), band).cmc).toBeCloseTo(0.89498, 5); // Kadaba 1989 CMC, 2x gain, computed with scipy/numpy
+    expect(scoreCurve(sine.map((v) => v + 0.1), band).cmc).toBeCloseTo(0.99499, 5); // Kadaba 1989 CMC, +0.1 offset, computed with scipy/numpy
   });
   it('counts only points with a value; inside share by hand', () => {
     const values = sine.map((v, i) => (i < 50 ? v : v + 2)); // points 50..100 (51 of 101) lie outside +-1

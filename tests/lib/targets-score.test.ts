@@ -70,12 +70,12 @@ describe('club groups and the common-practice defaults', () => {
     expect(clubGroupOf(null)).toBe('irons');
   });
 
-  it('says it is common practice, and the driver stays more behind the ball at impact than irons (domain.md, common practice)', () => {
+  it('says it is common practice, and the driver stays more behind the ball at impact than irons (common practice)', () => {
     expect(DEFAULT_TARGETS).toHaveLength(4);
     for (const t of DEFAULT_TARGETS) expect(`${t.name} ${t.description}`).toMatch(/common practice/i);
     const impactLead = (g: string) => DEFAULT_TARGETS.find((t) => t.clubGroup === g)!.checks.find((c) => c.event === 'impact' && c.measure === 'leadPct')!;
     expect(impactLead('driver').expected).toBeLessThan(impactLead('irons').expected);
-    // irons: about 80-90 % lead at impact must pass (domain.md, common practice)
+    // irons: about 80-90 % lead at impact must pass (common practice)
     expect(scoreCheck(impactLead('irons'), 80).pass && scoreCheck(impactLead('irons'), 90).pass).toBe(true);
     const irons = DEFAULT_TARGETS.find((t) => t.clubGroup === 'irons')!;
     expect(irons.checks.find((c) => c.event === 'address' && c.measure === 'leadPct')!.expected).toBe(50); // near 50/50 at address

@@ -27,7 +27,7 @@ describe('analyzeRecording(raw, layout, opts)', () => {
       const backswing = w.phases[0];
       expect(backswing.duration_s).toBeCloseTo(w.events.top - w.events.address, 9);
       expect(w.tempo_ratio).toBeCloseTo((w.events.top - w.events.address) / (w.events.impact - w.events.top), 9);
-      // the golf pattern of the generator: trail side at the top, lead side at impact and finish (domain.md)
+      // the golf pattern of the generator: trail side at the top, lead side at impact and finish (Ball & Best 2007, J Sports Sci 25(7):757-770 [citation from memory])
       expect(w.at_events.top.lead_pct).toBeLessThan(45);
       expect(w.at_events.impact.lead_pct).toBeGreaterThan(60);
       expect(w.at_events.finish.lead_pct).toBeGreaterThan(85);

@@ -34,7 +34,7 @@ const constant = (v: Record<string, number>) => uniform(100, 100, (id) => v[id])
 
 describe('copOf(forces, xs, ys)', () => {
   it('gives the worked example', () => {
-    // check-values.md [COMP]: p = [100, 300] at (0,0), (0.1,0.2) m -> (0.075, 0.150) m
+    // COP = Σ p_i r_i / Σ p_i (Winter 1995, Gait & Posture 3:193 [citation from memory]), computed by hand: p = [100, 300] at (0,0), (0.1,0.2) m -> (0.075, 0.150) m
     const c = copOf([100, 300], [0, 0.1], [0, 0.2]);
     expect(c.x).toBeCloseTo(0.075, 12);
     expect(c.y).toBeCloseTo(0.15, 12);

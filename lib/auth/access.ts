@@ -1,4 +1,5 @@
 import 'server-only';
+import type { DrillAssignmentRow, DrillRow, TargetRow } from 'knex/types/tables';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
@@ -80,9 +81,9 @@ export async function requireSwingsToUse(viewer: Viewer, swingIds: number[]): Pr
  */
 export async function requireBand(viewer: Viewer, bandId: number, need: Need): Promise<void> {
   const row = await db('bands').where({ id: bandId, academy_id: viewer.academyId }).first('owner_user_id', 'shared');
-  const owner = row ? Number(row.owner_user_id) : null;
+  const owner = row ? row.owner_user_id : null;
   let visible = false;
-  if (row && viewer.role === 'coach') visible = owner === viewer.id || Boolean(row.shared);
+  if (row && viewer.role === 'coach') visible = owner === viewer.id || row.shared;
   else if (row && viewer.role === 'student') {
     visible = Boolean(
       await db('coach_athletes as c').join('athletes as a', 'a.id', 'c.athlete_id').where({ 'a.user_id': viewer.id, 'c.coach_user_id': owner }).first('c.coach_user_id'),
@@ -96,25 +97,26 @@ export async function requireBand(viewer: Viewer, bandId: number, need: Need): P
  * A target, for writing: the academy's defaults (editable by design) and the coach's own targets. Another coach's
  * target is a 404 unless it was made for an athlete the viewer coaches (then they see it, and get 403).
  */
-export async function requireTargetToWrite(viewer: Viewer, targetId: number): Promise<Record<string, any>> {
+export async function requireTargetToWrite(viewer: Viewer, targetId: number): Promise<TargetRow> {
   const row = await db('targets').where({ id: targetId, academy_id: viewer.academyId }).first();
   if (!row) throw new NotFoundError('No target with this id.');
-  if (row.is_default || Number(row.owner_user_id) === viewer.id) return row;
-  const forMyAthlete = row.athlete_id !== null && (await athleteAccess(viewer, Number(row.athlete_id))) === 'coach';
+  if (row.is_default || row.owner_user_id === viewer.id) return row;
+  const forMyAthlete = row.athlete_id !== null && (await athleteAccess(viewer, row.athlete_id)) === 'coach';
   if (!forMyAthlete) throw new NotFoundError('No target with this id.');
   throw new ForbiddenError('Only the coach who made this target can change it.');
 }
 
 /** A drill, for writing: the coach's own library only; another coach's drill is a 404. */
-export async function requireDrillToWrite(viewer: Viewer, drillId: number): Promise<Record<string, any>> {
+export async function requireDrillToWrite(viewer: Viewer, drillId: number): Promise<DrillRow> {
   const row = await db('drills').where({ id: drillId }).first();
-  if (!row || Number(row.owner_user_id) !== viewer.id) throw new NotFoundError('No drill with this id.');
+  if (!row || row.owner_user_id !== viewer.id) throw new NotFoundError('No drill with this id.');
   return row;
 }
 
 /** A drill assignment: as its athlete (the student writes practice done and a note; the coach the due date). */
-export async function requireAssignment(viewer: Viewer, assignmentId: number): Promise<{ row: Record<string, any>; access: AthleteAccess }> {
+export async function requireAssignment(viewer: Viewer, assignmentId: number): Promise<{ row: DrillAssignmentRow; access: AthleteAccess }> {
   const row = await db('drill_assignments').where({ id: assignmentId }).first();
-  const { access } = await requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, 'read', 'drill assignment');
+  if (!row) throw new NotFoundError('No drill assignment with this id.');
+  const { access } = await requireOwnedBy(viewer, row.athlete_id, 'read', 'drill assignment');
   return { row, access };
 }

@@ -1,7 +1,8 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { jsonColumnOf, toIsoDate } from '@/lib/db/values';
+import type { DrillAssignmentRow, DrillRow } from 'knex/types/tables';
+import { jsonColumnOf, toIsoDate, toIsoTime } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { requireAssignment, requireAthlete, requireDrillToWrite, requireSession } from '@/lib/auth/access';
 import { swingFacts } from '@/lib/targets/swing-facts';
@@ -14,8 +15,17 @@ import type { Drill, DrillAssignment } from './types';
 
 const parse = jsonColumnOf;
 
-function toDrill(row: Record<string, any>): Drill {
-  return { id: Number(row.id), name: row.name, steps: parse<string[]>(row.steps), addressesChecks: parse(row.addresses_checks), cautions: row.cautions, ownerUserId: Number(row.owner_user_id) };
+type DrillFields = Pick<DrillRow, 'id' | 'name' | 'steps' | 'addresses_checks' | 'cautions' | 'owner_user_id'>;
+
+function toDrill(row: DrillFields): Drill {
+  return { id: row.id, name: row.name, steps: parse<string[]>(row.steps), addressesChecks: parse(row.addresses_checks), cautions: row.cautions, ownerUserId: row.owner_user_id };
+}
+
+/** The drill as saved (after an insert or update). */
+async function savedDrill(id: number): Promise<Drill> {
+  const row = await db('drills').where({ id }).first();
+  if (!row) throw new NotFoundError('No drill with this id.');
+  return toDrill(row);
 }
 
 async function studentAthleteId(viewer: Viewer): Promise<number | null> {
@@ -42,7 +52,7 @@ function drillColumns(input: Partial<DrillInput>): Record<string, unknown> {
 
 export async function createDrill(viewer: Viewer, input: DrillInput): Promise<Drill> {
   const [id] = await db('drills').insert({ ...drillColumns(input), academy_id: viewer.academyId, owner_user_id: viewer.id });
-  return toDrill(await db('drills').where({ id }).first());
+  return savedDrill(id);
 }
 
 const ownDrill = requireDrillToWrite;
@@ -50,7 +60,7 @@ const ownDrill = requireDrillToWrite;
 export async function updateDrill(viewer: Viewer, id: number, input: Partial<DrillInput>): Promise<Drill> {
   await ownDrill(viewer, id);
   await db('drills').where({ id }).update({ ...drillColumns(input), updated_at: db.raw('NOW(3)') });
-  return toDrill(await db('drills').where({ id }).first());
+  return savedDrill(id);
 }
 
 export async function deleteDrill(viewer: Viewer, id: number): Promise<void> {
@@ -58,18 +68,21 @@ export async function deleteDrill(viewer: Viewer, id: number): Promise<void> {
   await db('drills').where({ id }).delete();
 }
 
-function toAssignment(row: Record<string, any>): DrillAssignment {
+/** A row of assignmentQuery(): the assignment, its drill's fields and the athlete's name (a join, so typed here). */
+type AssignmentJoinRow = DrillAssignmentRow & Omit<DrillFields, 'id'> & { display_name: string };
+
+function toAssignment(row: AssignmentJoinRow): DrillAssignment {
   return {
-    id: Number(row.id),
+    id: row.id,
     drill: toDrill({ id: row.drill_id, name: row.name, steps: row.steps, addresses_checks: row.addresses_checks, cautions: row.cautions, owner_user_id: row.owner_user_id }),
-    athleteId: Number(row.athlete_id),
+    athleteId: row.athlete_id,
     athleteName: row.display_name,
-    assignedBy: row.assigned_by === null ? null : Number(row.assigned_by),
+    assignedBy: row.assigned_by,
     assignedAt: toIsoDate(row.assigned_at) ?? '',
     dueDate: toIsoDate(row.due_date) ?? '',
-    practiceDone: Boolean(row.practice_done),
-    doneAt: row.done_at ? new Date(row.done_at).toISOString() : null,
-    studentNote: row.student_note ?? null,
+    practiceDone: row.practice_done,
+    doneAt: toIsoTime(row.done_at),
+    studentNote: row.student_note,
   };
 }
 

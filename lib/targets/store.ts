@@ -5,6 +5,7 @@ import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
 import { requireAthlete, requireTargetToWrite } from '@/lib/auth/access';
 import type { TargetInput } from '@/lib/contracts/targets';
 import type { ClubGroup, Target, TargetCheck } from './types';
+import type { TargetRow } from 'knex/types/tables';
 import { jsonColumnOf } from '@/lib/db/values';
 
 // Who sees which targets: a coach sees the academy defaults, their own, and any target for an athlete on their
@@ -15,20 +16,27 @@ function parseChecks(v: unknown): TargetCheck[] {
   return jsonColumnOf<TargetCheck[]>(v);
 }
 
-export function toTarget(row: Record<string, any>): Target {
+export function toTarget(row: TargetRow): Target {
   return {
-    id: Number(row.id),
+    id: row.id,
     name: row.name,
     description: row.description,
     clubGroup: row.club_group,
-    athleteId: row.athlete_id === null ? null : Number(row.athlete_id),
-    ownerUserId: row.owner_user_id === null ? null : Number(row.owner_user_id),
-    isDefault: Boolean(row.is_default),
-    commonPractice: Boolean(row.common_practice),
+    athleteId: row.athlete_id,
+    ownerUserId: row.owner_user_id,
+    isDefault: row.is_default,
+    commonPractice: row.common_practice,
     checks: parseChecks(row.checks),
-    tempo: row.tempo_min === null || row.tempo_max === null ? null : { min: Number(row.tempo_min), max: Number(row.tempo_max) },
-    updatedAt: new Date(row.updated_at).toISOString(),
+    tempo: row.tempo_min === null || row.tempo_max === null ? null : { min: row.tempo_min, max: row.tempo_max },
+    updatedAt: row.updated_at.toISOString(),
   };
+}
+
+/** The target as saved (after an insert or update). */
+async function savedTarget(id: number): Promise<Target> {
+  const row = await db('targets').where({ id }).first();
+  if (!row) throw new NotFoundError('No target with this id.');
+  return toTarget(row);
 }
 
 async function coachesOf(athleteId: number): Promise<number[]> {
@@ -92,7 +100,7 @@ async function requireAthleteOnRoster(viewer: Viewer, athleteId: number | null |
 export async function createTarget(viewer: Viewer, input: TargetInput): Promise<Target> {
   await requireAthleteOnRoster(viewer, input.athleteId);
   const [id] = await db('targets').insert({ ...columns(input), academy_id: viewer.academyId, owner_user_id: viewer.id, is_default: false, common_practice: false });
-  return toTarget(await db('targets').where({ id }).first());
+  return savedTarget(id);
 }
 
 const editable = requireTargetToWrite;
@@ -102,7 +110,7 @@ export async function updateTarget(viewer: Viewer, id: number, input: Partial<Ta
   if (row.is_default && input.athleteId) throw new ConflictError('An academy default cannot be tied to one athlete; make a new target for them instead.');
   await requireAthleteOnRoster(viewer, input.athleteId);
   await db('targets').where({ id }).update({ ...columns(input), updated_at: db.raw('NOW(3)') });
-  return toTarget(await db('targets').where({ id }).first());
+  return savedTarget(id);
 }
 
 export async function deleteTarget(viewer: Viewer, id: number): Promise<void> {

@@ -1,0 +1,75 @@
+import type { Knex } from 'knex';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { seedDemo } from '@/db/demo/seed-demo';
+import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
+import { HttpSession, signedIn } from './support/http-session';
+import { serverDb } from './support/recordings-http';
+
+// Reproductions of the defects an outside probe of the running app found (issue 11), each now answered properly.
+// Demo ids (db/demo/scenario.ts, drills.ts): athlete 1 Ada Fenwick = student@, on coach@'s roster; drill 1 coach@'s.
+
+const env = e2eEnv();
+let db: Knex;
+let coach: HttpSession;
+let admin: HttpSession;
+
+const sendJson = (session: HttpSession, method: string, path: string, body: unknown) =>
+  session.json(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+
+/** A swing of Ada's demo recordings (processed by the real pipeline when the demo was seeded). */
+async function adaSwing(): Promise<{ id: number; start: number; end: number }> {
+  const row = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.athlete_id', 1).orderBy('s.id').first('s.id', 's.start_s', 's.end_s');
+  return { id: Number(row.id), start: Number(row.start_s), end: Number(row.end_s) };
+}
+
+beforeAll(async () => {
+  db = serverDb();
+  await seedDemo(db);
+  coach = await signedIn(env.E2E_BASE_URL, DEMO.coach, DEMO_PASSWORD);
+  admin = await signedIn(env.E2E_BASE_URL, DEMO.admin, DEMO_PASSWORD);
+});
+
+afterAll(async () => {
+  await seedDemo(db);
+  await db.destroy();
+});
+
+describe('dates and note times are checked, not stored or answered with a 500', () => {
+  it('a due date that does not exist is a 422 on dueDate (was 500 ER_TRUNCATED_WRONG_VALUE)', async () => {
+    for (const dueDate of ['2026-02-30', '2027-02-29', '2026-13-01', '0000-01-01']) {
+      const res = await sendJson(coach, 'POST', '/api/athletes/1/drill-assignments', { drillId: 1, dueDate });
+      expect(res.status, dueDate).toBe(422);
+      expect(Object.keys((res.body as any).error.fieldErrors), dueDate).toEqual(['dueDate']);
+    }
+    const leap = await sendJson(coach, 'POST', '/api/athletes/1/drill-assignments', { drillId: 1, dueDate: '2096-02-29' });
+    expect(leap.status).toBe(201); // a real leap day (ISO 8601 / Gregorian rule: 2096 is divisible by 4, not by 100)
+  });
+
+  it('a due date before the day of the assignment is refused, on create and on change', async () => {
+    const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+    const created = await sendJson(coach, 'POST', '/api/athletes/1/drill-assignments', { drillId: 1, dueDate: yesterday });
+    expect(created.status).toBe(422);
+    expect((created.body as any).error.fieldErrors.dueDate[0]).toMatch(/before the day it was assigned/);
+    const ok = await sendJson(coach, 'POST', '/api/athletes/1/drill-assignments', { drillId: 1, dueDate: '2099-01-01' });
+    expect(ok.status).toBe(201);
+    const id = (ok.body as any).assignment.id;
+    const moved = await sendJson(coach, 'PATCH', `/api/drill-assignments/${id}`, { dueDate: '2001-01-01' });
+    expect(moved.status).toBe(422);
+    expect((await db('drill_assignments').where({ id }).first('due_date')).due_date).toBe('2099-01-01');
+  });
+
+  it('a note pinned outside its swing (-1 s, 1e308 s) is a 422 on timeS and nothing is stored', async () => {
+    const swing = await adaSwing();
+    const before = await db('swing_annotations').where({ swing_id: swing.id }).count({ n: '*' });
+    for (const timeS of [-1, 1e308, swing.end + 0.5]) {
+      const res = await sendJson(coach, 'POST', `/api/swings/${swing.id}/annotations`, { body: 'Check this.', timeS, visibility: 'coach' });
+      expect(res.status, String(timeS)).toBe(422);
+      expect(Object.keys((res.body as any).error.fieldErrors)).toEqual(['timeS']);
+    }
+    expect(await db('swing_annotations').where({ swing_id: swing.id }).count({ n: '*' })).toEqual(before);
+    const inside = await sendJson(coach, 'POST', `/api/swings/${swing.id}/annotations`, { body: 'Check this.', timeS: (swing.start + swing.end) / 2, visibility: 'coach' });
+    expect(inside.status).toBe(201);
+    const moved = await sendJson(coach, 'PATCH', `/api/swings/${swing.id}/annotations/${(inside.body as any).annotation.id}`, { timeS: -1 });
+    expect(moved.status).toBe(422);
+  });
+});

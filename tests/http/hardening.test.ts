@@ -73,3 +73,27 @@ describe('dates and note times are checked, not stored or answered with a 500', 
     expect(moved.status).toBe(422);
   });
 });
+
+describe('unknown fields are refused with 422 everywhere (were silently dropped)', () => {
+  const athlete = { displayName: 'Strict Probe', handedness: 'right', stanceWidthMm: 400, dateOfBirth: null, homeClub: null };
+  const profile = { header: true, time: { column: 'time_s', unit: 's' }, units: 'N', sensors: { L1: 'L1', R1: 'R1' } };
+
+  it.each([
+    ['coach', 'POST', '/api/athletes', { ...athlete, academyId: 2 }, 'academyId'],
+    ['coach', 'PATCH', '/api/athletes/1', { displayName: 'Ada Fenwick', coachId: 5 }, 'coachId'],
+    ['admin', 'POST', '/api/users', { email: 'strict-probe@stanceline.test', name: 'Strict Probe', role: 'coach', password: 'a-long-password-1', academyId: 2 }, 'academyId'],
+    ['admin', 'PATCH', '/api/users/2', { active: true, isAdmin: true }, 'isAdmin'],
+    ['coach', 'POST', '/api/import-profiles', { name: 'strict', profile, owner: 9 }, 'owner'],
+    ['coach', 'POST', '/api/import-profiles', { name: 'strict', profile: { ...profile, scale: 2 } }, 'profile'],
+  ] as const)('%s %s %s with an extra field', async (who, method, path, body, field) => {
+    const res = await sendJson(who === 'admin' ? admin : coach, method, path, body);
+    expect(res.status).toBe(422);
+    const fieldErrors = (res.body as any).error.fieldErrors as Record<string, string[]>;
+    expect(JSON.stringify(fieldErrors)).toContain(field);
+  });
+
+  it('nothing was created by the refused requests', async () => {
+    expect(await db('athletes').where({ display_name: 'Strict Probe' }).count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(await db('users').where({ email: 'strict-probe@stanceline.test' }).count({ n: '*' })).toEqual([{ n: 0 }]);
+  });
+});

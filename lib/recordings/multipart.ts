@@ -69,6 +69,8 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
   try {
     parser = busboy({
       headers: { 'content-type': contentType },
+      // Browsers and fetch send the file name as raw UTF-8 in filename="..."; busboy's default reads it as latin1.
+      defParamCharset: 'utf8',
       limits: { fileSize: limits.maxFileBytes, files: limits.maxFiles, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
     });
   } catch (error) {

@@ -97,3 +97,18 @@ describe('unknown fields are refused with 422 everywhere (were silently dropped)
     expect(await db('users').where({ email: 'strict-probe@stanceline.test' }).count({ n: '*' })).toEqual([{ n: 0 }]);
   });
 });
+
+describe('concurrent label edits', () => {
+  it('20 concurrent PATCH {labels} on a swing with no label row all succeed (were 4 x 500 ER_LOCK_DEADLOCK)', async () => {
+    const swing = await adaSwing();
+    await db('swing_labels').where({ swing_id: swing.id }).delete();
+    const ratings = Array.from({ length: 20 }, (_, i) => (i % 5) + 1);
+    const answers = await Promise.all(ratings.map((rating, i) => sendJson(coach, 'PATCH', `/api/swings/${swing.id}`, { labels: { rating, tags: [`t${i}`] } })));
+    expect(answers.map((a) => a.status)).toEqual(ratings.map(() => 200));
+    const rows = await db('swing_labels').where({ swing_id: swing.id });
+    expect(rows).toHaveLength(1);
+    // the stored row is one of the requests' values, whole (rating and tags from the same request)
+    const i = (JSON.parse(rows[0].tags) as string[])[0].slice(1);
+    expect(Number(rows[0].rating)).toBe(ratings[Number(i)]);
+  });
+});

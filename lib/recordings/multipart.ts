@@ -5,7 +5,7 @@ import { rm } from 'node:fs/promises';
 import { Readable } from 'node:stream';
 import type { ReadableStream as WebReadableStream } from 'node:stream/web';
 import busboy from 'busboy';
-import { HttpError } from '@/lib/http';
+import { HttpError, PayloadTooLargeError } from '@/lib/http';
 import { spoolUpload, type SpooledFile } from '@/lib/storage/spool';
 
 export interface UploadLimits {
@@ -25,11 +25,7 @@ export interface ReceivedForm {
 const MAX_FIELDS = 30;
 const MAX_FIELD_BYTES = 1024 * 1024; // a layout or profile JSON is a few KB
 
-export class PayloadTooLargeError extends HttpError {
-  constructor(message: string) {
-    super(413, 'payload_too_large', message);
-  }
-}
+export { PayloadTooLargeError };
 
 export class BadUploadError extends HttpError {
   constructor(code: string, message: string) {

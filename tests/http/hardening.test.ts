@@ -1,3 +1,4 @@
+import { request as httpRequest } from 'node:http';
 import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
@@ -110,5 +111,73 @@ describe('concurrent label edits', () => {
     // the stored row is one of the requests' values, whole (rating and tags from the same request)
     const i = (JSON.parse(rows[0].tags) as string[])[0].slice(1);
     expect(Number(rows[0].rating)).toBe(ratings[Number(i)]);
+  });
+});
+
+/** Sends `total` bytes of JSON-ish text with a declared Content-Length, stopping as soon as an answer arrives. */
+function postDeclared(path: string, cookie: string, total: number): Promise<{ status: number; body: string; written: number }> {
+  const chunk = Buffer.alloc(1 << 20, 0x20); // spaces: still valid JSON around a value
+  let written = 0;
+  return new Promise((resolve, reject) => {
+    let answered = false;
+    const req = httpRequest(`${env.E2E_BASE_URL}${path}`, { method: 'PATCH', headers: { cookie, 'content-type': 'application/json', 'content-length': String(total) } });
+    req.on('response', (res) => {
+      answered = true;
+      let text = '';
+      res.setEncoding('utf8');
+      res.on('data', (c: string) => (text += c));
+      res.on('end', () => {
+        req.destroy();
+        resolve({ status: res.statusCode ?? 0, body: text, written });
+      });
+    });
+    req.on('error', (error) => (answered ? undefined : reject(error)));
+    const pump = () => {
+      while (!answered && written + chunk.length <= total) {
+        written += chunk.length;
+        if (!req.write(chunk)) return void req.once('drain', pump);
+      }
+    };
+    pump();
+  });
+}
+
+describe('JSON bodies are limited to 1 MB', () => {
+  it('a declared 200 MB JSON body is answered 413 before it is read (was read whole: +390 MB of memory)', async () => {
+    const total = 200 * 1024 * 1024;
+    const answer = await postDeclared('/api/athletes/1', coach.cookieHeader(), total);
+    expect(answer.status).toBe(413);
+    expect(JSON.parse(answer.body).error).toMatchObject({ code: 'payload_too_large', message: expect.stringMatching(/limited to 1 MB/) });
+    expect(answer.written).toBeLessThan(total / 4);
+  });
+
+  it('a streamed body without Content-Length is refused once it passes 1 MB', async () => {
+    let sent = 0;
+    const body = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode('{"displayName":"'));
+      },
+      pull(controller) {
+        if (sent >= 200) {
+          controller.enqueue(new TextEncoder().encode('"}'));
+          controller.close();
+          return;
+        }
+        sent++;
+        controller.enqueue(new Uint8Array(1 << 20).fill(0x61));
+      },
+    });
+    const outcome = await coach
+      .fetch('/api/athletes/1', { method: 'PATCH', headers: { 'content-type': 'application/json' }, body, duplex: 'half' } as RequestInit)
+      .then(async (r) => ({ status: r.status, body: await r.json() }))
+      .catch((error: Error) => ({ status: 0, body: String(error) }));
+    expect(outcome.status).toBe(413);
+    expect(sent).toBeLessThan(200);
+    expect((await db('athletes').where({ id: 1 }).first('display_name')).display_name).toBe('Ada Fenwick');
+  });
+
+  it('a body under the limit still works', async () => {
+    const res = await sendJson(coach, 'PATCH', '/api/athletes/1', { homeClub: 'x'.repeat(100) });
+    expect(res.status).toBe(200);
   });
 });

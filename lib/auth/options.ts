@@ -5,7 +5,7 @@ import { clientIp } from '@/lib/auth/client-ip';
 import { cookieSettings } from '@/lib/auth/cookies';
 import { verifyPassword } from '@/lib/auth/password';
 import { decideThrottle, SIGN_IN_WINDOW_MS } from '@/lib/auth/rate-limit';
-import { rateLimitedCode } from '@/lib/auth/sign-in-errors';
+import { rateLimitedCode, SERVICE_UNAVAILABLE } from '@/lib/auth/sign-in-errors';
 import { recentEmailFailures, recentIpFailures, recordLoginAttempt } from '@/lib/db/login-attempts';
 import { findUserForSignIn } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
@@ -14,8 +14,26 @@ import { signInSchema } from '@/lib/validations/user';
 const SESSION_MAX_AGE_S = 8 * 60 * 60; // one working day
 
 
-/** Checks the throttle, then the password; records the outcome. Throws a coded Error when throttled. */
+/** Codes the sign-in page knows; next-auth copies a thrown error's message into the redirect's ?error=. */
+const KNOWN_CODE = /^(invalid-input|rate-limited-(email|ip)-\d+)$/;
+
+/**
+ * authorize() for next-auth: a coded Error for bad input or a throttle, null for wrong credentials. Any other failure
+ * (the database is down: "connect ECONNREFUSED 127.0.0.1:3311") is logged here and becomes "service-unavailable",
+ * so no internal detail reaches the redirect URL.
+ */
 export async function authorizeCredentials(raw: unknown, ip: string, now = new Date()) {
+  try {
+    return await checkCredentials(raw, ip, now);
+  } catch (error) {
+    if (error instanceof Error && KNOWN_CODE.test(error.message)) throw error;
+    console.error('[stanceline] sign-in could not be checked', error);
+    throw new Error(SERVICE_UNAVAILABLE);
+  }
+}
+
+/** Checks the throttle, then the password; records the outcome. Throws a coded Error when throttled. */
+async function checkCredentials(raw: unknown, ip: string, now: Date) {
   const parsed = signInSchema.safeParse(raw);
   if (!parsed.success) throw new Error('invalid-input');
   const { email, password } = parsed.data;

@@ -4,5 +4,7 @@ export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME === 'nodejs' && process.env.NEXT_PHASE !== 'phase-production-build') {
     const { startAppWorker } = await import('./lib/jobs/start');
     startAppWorker();
+    const { startSpoolSweeper } = await import('./lib/recordings/upload');
+    startSpoolSweeper();
   }
 }

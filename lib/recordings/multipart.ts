@@ -84,6 +84,10 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
       if (failure) return;
       failure = error;
       body.unpipe(parser);
+      // No more parts: busboy may still be inside the chunk that held the bad field and would announce the next file
+      // part, whose stream then never ends because the body was cut off (the request hung, its spool file stayed).
+      parser.removeAllListeners('file');
+      parser.on('file', (_name: string, stream: Readable) => stream.resume());
       // A body over the size limit is cut off (the answer says "Connection: close"); any other refused body is
       // read to its end, up to 8 MB, so the client gets the answer on a connection it can keep using.
       if (error instanceof PayloadTooLargeError) body.destroy();
@@ -96,6 +100,10 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
       else fields[name] = value;
     });
     parser.on('file', (name, stream, info) => {
+      if (failure) {
+        stream.resume();
+        return;
+      }
       if (name !== 'file') {
         stream.resume();
         fail(new BadUploadError('unexpected_part', `Unexpected file part "${name}"; send each recording as a part named "file".`));

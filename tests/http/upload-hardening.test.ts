@@ -98,3 +98,33 @@ describe('file names', () => {
     expect((await db('recordings').where({ id: res.body.recordings[0].id }).first('filename')).filename).toBe('naïve-日本語.csv');
   });
 });
+
+describe('bad files fail once, with a short reason naming line and column', () => {
+  const cases: [string, () => string, RegExp, number, number][] = [
+    // a 100,000-character cell (was: the whole cell in last_error, and "processing stopped 3 time(s)")
+    ['huge-cell.csv', () => golfLines.map((l, i) => (i === firstDataLine + 100 ? l.replace(/,[^,]*/, `,${'9x'.repeat(50_000)}`) : l)).join('\n'), /longer than 65536 characters/, firstDataLine + 101, 65_537],
+    // 30 MB without a newline at the end of the file (was: ROLLBACK - write ECONNRESET)
+    ['endless-line.csv', () => `${golf}${'1,'.repeat(15 * 1024 * 1024)}`, /longer than 65536 characters/, golfLines.length, 65_537],
+    // CR-only line ends (was: the misleading "no header row")
+    ['cr-only.csv', () => golf.replace(/\n/g, '\r'), /carriage return \(CR\) only/, 1, golfLines[0].length + 1],
+    // a -500 N force (was accepted)
+    ['negative.csv', () => golfLines.map((l, i) => (i === firstDataLine + 4 ? l.replace(/^([^,]*),[^,]*,[^,]*,/, '$1,1,-500,') : l)).join('\n'), /"-500" is below -10/, firstDataLine + 5, 3],
+    // sample_rate_hz 1e12 (was accepted)
+    ['rate.csv', () => golf.replace(/# sample_rate_hz: [^\n]*/, '# sample_rate_hz: 1e12'), /at most 10000 Hz/, golfLines.findIndex((l) => l.startsWith('# sample_rate_hz')) + 1, 1],
+  ];
+
+  it.each(cases)('%s', async (name, make, reason, line, column) => {
+    const content = make();
+    const done = await processed(name, content);
+    expect(done.status).toBe('failed');
+    expect(done.error).toMatchObject({ line, column });
+    expect(done.error.message).toMatch(reason);
+    expect(done.error.message).toMatch(new RegExp(`^line ${line}, column ${column}: `));
+    expect(done.error.message.length).toBeLessThan(300);
+    const job = await db('processing_jobs').where({ recording_id: done.id }).first('state', 'attempts', 'last_error');
+    expect(job).toMatchObject({ state: 'failed', attempts: 1 }); // failed at the first try, not after 3 "stopped" attempts
+    expect(job.last_error.length).toBeLessThan(300);
+    expect(await db('swings').where({ recording_id: done.id }).count({ n: '*' })).toEqual([{ n: 0 }]);
+    await rawKept(done.id, content);
+  });
+});

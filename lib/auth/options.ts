@@ -6,7 +6,7 @@ import { cookieSettings } from '@/lib/auth/cookies';
 import { verifyPassword } from '@/lib/auth/password';
 import { decideThrottle, SIGN_IN_WINDOW_MS } from '@/lib/auth/rate-limit';
 import { rateLimitedCode, SERVICE_UNAVAILABLE } from '@/lib/auth/sign-in-errors';
-import { recentEmailFailures, recentIpFailures, recordLoginAttempt } from '@/lib/db/login-attempts';
+import { markLoginSucceeded, reserveLoginAttempt } from '@/lib/db/login-attempts';
 import { findUserForSignIn } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
 import { signInSchema } from '@/lib/validations/user';
@@ -39,16 +39,16 @@ async function checkCredentials(raw: unknown, ip: string, now: Date) {
   const { email, password } = parsed.data;
 
   const since = new Date(now.getTime() - SIGN_IN_WINDOW_MS);
-  const [emailFailures, ipFailures] = await Promise.all([recentEmailFailures(email, since), recentIpFailures(ip, since)]);
-  const decision = decideThrottle(emailFailures, ipFailures, now);
-  // Refused attempts are not recorded: recording them would push the window forward and the "try again in N
-  // minutes" promise would never come true.
+  const { decision, attemptId } = await reserveLoginAttempt({ email, ip, at: now }, since, (emailFailures, ipFailures) =>
+    decideThrottle(emailFailures, ipFailures, now),
+  );
   if (!decision.allowed) throw new Error(rateLimitedCode(decision.scope, decision.retryAfterMinutes));
 
+  // The attempt is already recorded as a failure; only a success changes it.
   const user = await findUserForSignIn(email);
   const passwordMatches = await verifyPassword(password, user?.passwordHash ?? null);
   const succeeded = Boolean(user && user.active && passwordMatches);
-  await recordLoginAttempt({ email, ip, succeeded, at: now });
+  if (succeeded && attemptId !== null) await markLoginSucceeded(attemptId);
   if (!user || !succeeded) return null;
   return { id: String(user.id), email: user.email, name: user.name, role: user.role, academyId: user.academyId };
 }
@@ -82,7 +82,7 @@ function buildAuthOptions(): NextAuthOptions {
           email: { label: 'Email', type: 'email' },
           password: { label: 'Password', type: 'password' },
         },
-        authorize: (credentials, req) => authorizeCredentials(credentials, clientIp(req?.headers)),
+        authorize: (credentials, req) => authorizeCredentials(credentials, clientIp(req?.headers, env.TRUST_PROXY === 'true')),
       }),
     ],
     callbacks: {

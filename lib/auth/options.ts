@@ -7,7 +7,7 @@ import { verifyPassword } from '@/lib/auth/password';
 import { decideThrottle, SIGN_IN_WINDOW_MS } from '@/lib/auth/rate-limit';
 import { rateLimitedCode, SERVICE_UNAVAILABLE } from '@/lib/auth/sign-in-errors';
 import { markLoginSucceeded, reserveLoginAttempt } from '@/lib/db/login-attempts';
-import { findUserForSignIn } from '@/lib/db/users';
+import { bumpSessionVersion, findUserForSignIn } from '@/lib/db/users';
 import { getEnv } from '@/lib/env';
 import { signInSchema } from '@/lib/validations/user';
 
@@ -50,7 +50,7 @@ async function checkCredentials(raw: unknown, ip: string, now: Date) {
   const succeeded = Boolean(user && user.active && passwordMatches);
   if (succeeded && attemptId !== null) await markLoginSucceeded(attemptId);
   if (!user || !succeeded) return null;
-  return { id: String(user.id), email: user.email, name: user.name, role: user.role, academyId: user.academyId };
+  return { id: String(user.id), email: user.email, name: user.name, role: user.role, academyId: user.academyId, sessionVersion: user.sessionVersion };
 }
 
 let cached: NextAuthOptions | undefined;
@@ -85,12 +85,19 @@ function buildAuthOptions(): NextAuthOptions {
         authorize: (credentials, req) => authorizeCredentials(credentials, clientIp(req?.headers, env.TRUST_PROXY === 'true')),
       }),
     ],
+    events: {
+      // Sign-out ends this token and every other copy of it: the next request with it finds an older version.
+      async signOut({ token }) {
+        if (token && typeof token.uid === 'number') await bumpSessionVersion(token.uid);
+      },
+    },
     callbacks: {
       jwt({ token, user }) {
         if (user) {
           token.uid = Number(user.id);
           token.role = user.role;
           token.academyId = user.academyId;
+          token.sv = user.sessionVersion;
         }
         return token;
       },
@@ -99,6 +106,7 @@ function buildAuthOptions(): NextAuthOptions {
           id: token.uid,
           role: token.role,
           academyId: token.academyId,
+          sessionVersion: typeof token.sv === 'number' ? token.sv : -1,
           name: token.name ?? '',
           email: token.email ?? '',
         };

@@ -181,3 +181,30 @@ describe('JSON bodies are limited to 1 MB', () => {
     expect(res.status).toBe(200);
   });
 });
+
+describe('CSP: per-request nonces instead of script-src unsafe-inline', () => {
+  it('each page answer has its own nonce, and every script tag carries it', async () => {
+    const nonces: string[] = [];
+    for (let i = 0; i < 2; i++) {
+      const res = await coach.fetch('/roster');
+      expect(res.status).toBe(200);
+      const csp = res.headers.get('content-security-policy') ?? '';
+      const nonce = /'nonce-([A-Za-z0-9+/=]+)'/.exec(csp)?.[1];
+      expect(nonce, csp).toBeDefined();
+      expect(/script-src[^;]*'unsafe-inline'/.test(csp)).toBe(false);
+      const html = await res.text();
+      const scripts = html.match(/<script\b[^>]*>/g) ?? [];
+      expect(scripts.length).toBeGreaterThan(0);
+      for (const tag of scripts) expect(tag).toContain(`nonce="${nonce}"`);
+      nonces.push(nonce!);
+    }
+    expect(nonces[0]).not.toBe(nonces[1]);
+  });
+
+  it('the sign-in page has a nonce policy too; API answers allow nothing', async () => {
+    const res = await fetch(`${env.E2E_BASE_URL}/sign-in`);
+    expect(res.headers.get('content-security-policy')).toMatch(/'nonce-/);
+    const api = await fetch(`${env.E2E_BASE_URL}/api/me`);
+    expect(api.headers.get('content-security-policy')).toMatch(/default-src 'none'/);
+  });
+});

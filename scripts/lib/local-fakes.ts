@@ -14,7 +14,7 @@ type FakeStarter = (dir: string) => Promise<{ name: string; env: Record<string, 
 // Object storage: an S3 fake unless real S3 is configured (STORAGE_S3_BUCKET) or LOCAL_S3_FAKE=off asks for the
 // plain local folder (STORAGE_DIR) instead. Its files go to S3_FAKE_DIR when set, else to `s3` in the fakes' folder,
 // so two instances on one machine (another MARIADB_DIR, another checkout) never share a bucket folder.
-export function s3FakeDir(dir: string, env: NodeJS.ProcessEnv = process.env): string {
+export function s3FakeDir(dir: string, env: Record<string, string | undefined> = process.env): string {
   return env.S3_FAKE_DIR ? resolve(env.S3_FAKE_DIR) : join(dir, 's3');
 }
 
@@ -27,7 +27,7 @@ const STARTERS: FakeStarter[] = [startS3];
  * The fakes' folder of `npm start`: LOCAL_FAKES_DIR, else next to a MARIADB_DIR that picks another database (so a
  * second instance gets its own), else .data/fakes (kept between runs).
  */
-export function defaultFakesDir(env: NodeJS.ProcessEnv = process.env): string {
+export function defaultFakesDir(env: Record<string, string | undefined> = process.env): string {
   if (env.LOCAL_FAKES_DIR) return resolve(env.LOCAL_FAKES_DIR);
   if (env.MARIADB_DIR) return join(dirname(resolve(env.MARIADB_DIR)), `${resolve(env.MARIADB_DIR).split(/[\\/]/).pop()}-fakes`);
   return join('.data', 'fakes');

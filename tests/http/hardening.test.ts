@@ -4,7 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
-import { serverDb } from './support/recordings-http';
+import { generateSession } from '@/lib/signal/synthetic';
+import { serverDb, settled, upload } from './support/recordings-http';
 
 // Reproductions of the defects an outside probe of the running app found (issue 11), each now answered properly.
 // Demo ids (db/demo/scenario.ts, drills.ts): athlete 1 Ada Fenwick = student@, on coach@'s roster; drill 1 coach@'s.
@@ -17,10 +18,19 @@ let admin: HttpSession;
 const sendJson = (session: HttpSession, method: string, path: string, body: unknown) =>
   session.json(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
 
-/** A swing of Ada's demo recordings (processed by the real pipeline when the demo was seeded). */
+let swingCache: { id: number; start: number; end: number } | null = null;
+
+/** A swing of a generated recording uploaded for demo athlete 3 (coach@'s roster, session 6) and processed. */
 async function adaSwing(): Promise<{ id: number; start: number; end: number }> {
-  const row = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.athlete_id', 1).orderBy('s.id').first('s.id', 's.start_s', 's.end_s');
-  return { id: Number(row.id), start: Number(row.start_s), end: Number(row.end_s) };
+  if (swingCache) return swingCache;
+  const csv = generateSession({ seed: 31, sampleRateHz: 100, sensorsPerFoot: 8, units: 'N', handedness: 'right', stanceWidthMm: 400, swings: 1, withMarker: false }).csv();
+  const res = await upload(coach, { athleteId: 3, sessionId: 6, handedness: 'right', stanceWidthMm: 400 }, [{ name: 'hardening-swing.csv', content: csv }]);
+  expect(res.status).toBe(202);
+  const done = await settled(coach, res.body.recordings[0].id, 120_000);
+  expect(done.status).toBe('ready');
+  const row = await db('swings').where({ recording_id: done.id }).orderBy('id').first('id', 'start_s', 'end_s');
+  swingCache = { id: Number(row.id), start: Number(row.start_s), end: Number(row.end_s) };
+  return swingCache;
 }
 
 beforeAll(async () => {

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import localFont from 'next/font/local';
 import { connection } from 'next/server';
+import { ZodJitless } from '@/components/shell/zod-jitless';
 import type { ReactNode } from 'react';
 import './globals.css';
 
@@ -23,7 +24,10 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
   await connection();
   return (
     <html lang="en" className={inter.variable}>
-      <body className="min-h-screen font-sans">{children}</body>
+      <body className="min-h-screen font-sans">
+        <ZodJitless />
+        {children}
+      </body>
     </html>
   );
 }

@@ -1,5 +1,7 @@
 import type { Metadata } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
+import { ZodJitless } from '@/components/shell/zod-jitless';
 import type { ReactNode } from 'react';
 import './globals.css';
 
@@ -16,10 +18,16 @@ export const metadata: Metadata = {
   description: 'Ground-pressure workbench for golf coaches and their students.',
 };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // Every page is rendered per request: Next can put the request's CSP nonce (proxy.ts) only on scripts it renders
+  // then; a page prerendered at build time would carry scripts without it, and the browser would block them.
+  await connection();
   return (
     <html lang="en" className={inter.variable}>
-      <body className="min-h-screen font-sans">{children}</body>
+      <body className="min-h-screen font-sans">
+        <ZodJitless />
+        {children}
+      </body>
     </html>
   );
 }

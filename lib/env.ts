@@ -26,6 +26,9 @@ export const serverEnvSchema = z
     // Upload limits (POST /api/recordings): bytes per file (default 200 MB) and files per request.
     MAX_UPLOAD_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
     MAX_UPLOAD_FILES: z.coerce.number().int().min(1).max(1000).default(20),
+    // true only behind one reverse proxy that sets X-Forwarded-For: the per-IP sign-in limit then uses the address the
+    // proxy saw. Otherwise the header is the client's own text and the TCP peer address is used.
+    TRUST_PROXY: z.enum(['true', 'false'], { error: 'must be true or false' }).default('false'),
     // The processing worker inside each app process; WORKER_ENABLED=false leaves the queue to other instances.
     WORKER_ENABLED: z.enum(['true', 'false'], { error: 'must be true or false' }).default('true'),
     WORKER_POLL_MS: z.coerce.number().int().min(50).default(1000),

@@ -36,6 +36,12 @@ export class ConflictError extends HttpError {
   }
 }
 
+export class PayloadTooLargeError extends HttpError {
+  constructor(message: string) {
+    super(413, 'payload_too_large', message);
+  }
+}
+
 export type ErrorBody = {
   error: { code: string; message: string; fieldErrors?: Record<string, string[]> };
 };
@@ -109,10 +115,42 @@ export function withErrors<C>(handler: Handler<C>): Handler<C> {
   };
 }
 
-/** Reads a JSON body; a malformed body is a 422 on the pseudo-field "_body". */
-export async function readJson(request: Request): Promise<unknown> {
+/** Largest JSON body a route reads: forms and edits are a few KB. */
+export const MAX_JSON_BODY_BYTES = 1024 * 1024;
+
+function jsonTooLarge(request: Request): PayloadTooLargeError {
+  // The rest of the body is not wanted; cancelling stops the server from buffering it.
+  request.body?.cancel().catch(() => undefined);
+  return new PayloadTooLargeError(`The request body is larger than ${MAX_JSON_BODY_BYTES / (1024 * 1024)} MB; JSON requests are limited to 1 MB.`);
+}
+
+/**
+ * Reads a JSON body of at most MAX_JSON_BODY_BYTES: a larger declared Content-Length is a 413 before anything is
+ * read, and a body without one is counted while it streams and refused as soon as it passes the limit. A malformed
+ * body is a 422 on the pseudo-field "_body".
+ */
+export async function readJson(request: Request, maxBytes = MAX_JSON_BODY_BYTES): Promise<unknown> {
+  const declared = Number(request.headers.get('content-length') ?? NaN);
+  if (Number.isFinite(declared) && declared > maxBytes) throw jsonTooLarge(request);
+  let text = '';
+  if (request.body) {
+    const reader = request.body.getReader();
+    const decoder = new TextDecoder();
+    let seen = 0;
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      seen += value.byteLength;
+      if (seen > maxBytes) {
+        await reader.cancel().catch(() => undefined);
+        throw jsonTooLarge(request);
+      }
+      text += decoder.decode(value, { stream: true });
+    }
+    text += decoder.decode();
+  }
   try {
-    return await request.json();
+    return JSON.parse(text);
   } catch {
     throw new ZodError([
       { code: 'custom', path: ['_body'], message: 'The request body must be valid JSON.', input: undefined },

@@ -1,6 +1,6 @@
 'use client';
 // Add a drill to the coach's library. The form keeps steps as one per line and the checks as ticks; what is sent is
-// the API's own shape, validated with the route's schema (lib/validations/drill.ts).
+// the API's own shape, validated with the route's schema (lib/contracts/drills.ts).
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';

@@ -17,6 +17,8 @@ export async function getViewer(): Promise<Viewer | null> {
   if (typeof id !== 'number' || !Number.isFinite(id)) return null;
   const current = await findActiveUser(id);
   if (!current) return null;
+  // A token from before the last sign-out or deactivation (users.session_version moved on) is dead.
+  if (session!.user.sessionVersion !== current.sessionVersion) return null;
   return { id, role: current.role, academyId: current.academyId, name: session!.user.name, email: session!.user.email };
 }
 

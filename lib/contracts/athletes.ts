@@ -18,7 +18,7 @@ export const dateOfBirthSchema = isoDate.refine((value) => value <= new Date().t
   error: 'The date of birth cannot be in the future.',
 }).refine((value) => value >= '1900-01-01', { error: 'The date of birth must be after 1900-01-01.' });
 
-export const athleteInputSchema = z.object({
+export const athleteInputSchema = z.strictObject({
   displayName: z
     .string({ error: 'Enter a name.' })
     .trim()

@@ -14,7 +14,8 @@ export const drillInputSchema = z.strictObject({
 export type DrillInput = z.infer<typeof drillInputSchema>;
 export const drillPatchSchema = drillInputSchema.partial().refine((v) => Object.keys(v).length > 0, { error: 'Change at least one field.' });
 
-const isoDate = z.string({ error: 'Give the due date as YYYY-MM-DD.' }).regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Give the due date as YYYY-MM-DD.' }).refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), { error: 'Not a real date.' });
+// z.iso.date checks the calendar (2026-02-30 and 2025-02-29 are refused); years before 1900 (0000) are typos.
+const isoDate = z.iso.date({ error: 'Give the due date as a real date, YYYY-MM-DD.' }).refine((s) => s >= '1900-01-01', { error: 'Give a due date after 1900.' });
 
 export const assignmentInputSchema = z.strictObject({ drillId: z.number({ error: 'Choose a drill.' }).int().positive(), dueDate: isoDate });
 

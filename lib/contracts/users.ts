@@ -16,7 +16,7 @@ export const signInSchema = z.object({
 
 // 12 characters minimum: length matters more than composition rules (NIST SP 800-63B, section 5.1.1.2
 // asks for at least 8; 12 is our own stricter choice).
-export const createUserSchema = z.object({
+export const createUserSchema = z.strictObject({
   email: emailSchema,
   name: z.string({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120),
   role: z.enum(roleValues, { error: 'Choose a role.' }),
@@ -27,7 +27,7 @@ export const createUserSchema = z.object({
 });
 
 export const updateUserSchema = z
-  .object({
+  .strictObject({
     role: z.enum(roleValues, { error: 'Choose a role.' }).optional(),
     active: z.boolean({ error: 'Active must be true or false.' }).optional(),
   })

@@ -12,6 +12,7 @@ export type UserForSignIn = {
   role: Role;
   active: boolean;
   passwordHash: string;
+  sessionVersion: number;
 };
 
 type UserRow = {
@@ -22,6 +23,7 @@ type UserRow = {
   role: Role;
   active: number | boolean;
   password_hash?: string;
+  session_version?: number;
 };
 
 function toAcademyUser(row: UserRow): AcademyUser {
@@ -31,7 +33,7 @@ function toAcademyUser(row: UserRow): AcademyUser {
 /** Emails are stored lower-case (schema rule); callers pass the normalised address. */
 export async function findUserForSignIn(email: string): Promise<UserForSignIn | null> {
   const row: UserRow | undefined = await db('users')
-    .select('id', 'academy_id', 'email', 'name', 'role', 'active', 'password_hash')
+    .select('id', 'academy_id', 'email', 'name', 'role', 'active', 'password_hash', 'session_version')
     .where({ email: email.toLowerCase() })
     .first();
   if (!row) return null;
@@ -43,6 +45,7 @@ export async function findUserForSignIn(email: string): Promise<UserForSignIn | 
     role: row.role,
     active: Boolean(row.active),
     passwordHash: row.password_hash ?? '',
+    sessionVersion: Number(row.session_version ?? 0),
   };
 }
 
@@ -99,13 +102,20 @@ export async function updateAcademyUser(
   const columns: Record<string, unknown> = { updated_at: new Date() };
   if (patch.role !== undefined) columns.role = patch.role;
   if (patch.active !== undefined) columns.active = patch.active;
+  // Deactivation ends every session of the account for good: reactivating it later does not revive old tokens.
+  if (patch.active === false) columns.session_version = db.raw('session_version + 1');
   await db('users').where({ id: userId, academy_id: admin.academyId }).update(columns);
   return getAcademyUser(admin.academyId, userId);
 }
 
-/** Active flag and current role, re-read on each request so a deactivated account loses access at once. */
-export async function findActiveUser(userId: number): Promise<{ role: Role; academyId: number } | null> {
-  const row: UserRow | undefined = await db('users').select('role', 'academy_id', 'active').where({ id: userId }).first();
+/** Active flag, current role and session version, re-read on each request so a deactivated account loses access at once. */
+export async function findActiveUser(userId: number): Promise<{ role: Role; academyId: number; sessionVersion: number } | null> {
+  const row: UserRow | undefined = await db('users').select('role', 'academy_id', 'active', 'session_version').where({ id: userId }).first();
   if (!row || !row.active) return null;
-  return { role: row.role, academyId: Number(row.academy_id) };
+  return { role: row.role, academyId: Number(row.academy_id), sessionVersion: Number(row.session_version ?? 0) };
+}
+
+/** Sign-out: every token issued before now stops working (getViewer compares versions). */
+export async function bumpSessionVersion(userId: number): Promise<void> {
+  await db('users').where({ id: userId }).update({ session_version: db.raw('session_version + 1') });
 }

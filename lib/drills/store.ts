@@ -1,4 +1,5 @@
 import 'server-only';
+import { ZodError } from 'zod';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import type { DrillAssignmentRow, DrillRow } from 'knex/types/tables';
@@ -105,9 +106,14 @@ export async function listAssignments(viewer: Viewer, athleteId?: number): Promi
   return (await q).map(toAssignment);
 }
 
+function dueBefore(assignedAt: string): ZodError {
+  return new ZodError([{ code: 'custom', path: ['dueDate'], message: `The due date cannot be before the day it was assigned (${assignedAt}).`, input: undefined }]);
+}
+
 export async function assignDrill(viewer: Viewer, athleteId: number, drillId: number, dueDate: string, today: string): Promise<DrillAssignment> {
   await requireAthlete(viewer, athleteId, 'write');
   await ownDrill(viewer, drillId);
+  if (dueDate < today) throw dueBefore(today);
   const [id] = await db('drill_assignments').insert({ drill_id: drillId, athlete_id: athleteId, assigned_by: viewer.id, assigned_at: today, due_date: dueDate });
   return toAssignment(await assignmentQuery().where('a.id', id).first());
 }
@@ -127,7 +133,11 @@ export async function updateAssignment(viewer: Viewer, id: number, patch: { prac
     columns.done_at = patch.practiceDone ? db.raw('NOW(3)') : null;
   }
   if (patch.studentNote !== undefined) columns.student_note = patch.studentNote === '' ? null : patch.studentNote;
-  if (patch.dueDate !== undefined) columns.due_date = patch.dueDate;
+  if (patch.dueDate !== undefined) {
+    const assignedAt = toIsoDate(row.assigned_at) ?? '';
+    if (patch.dueDate < assignedAt) throw dueBefore(assignedAt);
+    columns.due_date = patch.dueDate;
+  }
   await db('drill_assignments').where({ id }).update(columns);
   return toAssignment(await assignmentQuery().where('a.id', id).first());
 }

@@ -90,7 +90,7 @@ export async function stillOwned(trx: Knex.Transaction, jobId: number, workerId:
 export async function finishJob(trx: Knex.Transaction, jobId: number, state: 'done' | 'failed', lastError: string | null): Promise<void> {
   await trx('processing_jobs')
     .where({ id: jobId })
-    .update({ state, last_error: lastError, locked_by: null, finished_at: trx.raw('NOW(3)') });
+    .update({ state, last_error: lastError === null ? null : lastError.slice(0, 2000), locked_by: null, finished_at: trx.raw('NOW(3)') });
 }
 
 /** A recording that could not be processed: no results survive, the reason (and where) is kept. */

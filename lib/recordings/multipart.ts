@@ -5,7 +5,7 @@ import { rm } from 'node:fs/promises';
 import { Readable } from 'node:stream';
 import type { ReadableStream as WebReadableStream } from 'node:stream/web';
 import busboy from 'busboy';
-import { HttpError } from '@/lib/http';
+import { HttpError, PayloadTooLargeError } from '@/lib/http';
 import { spoolUpload, type SpooledFile } from '@/lib/storage/spool';
 
 export interface UploadLimits {
@@ -25,11 +25,7 @@ export interface ReceivedForm {
 const MAX_FIELDS = 30;
 const MAX_FIELD_BYTES = 1024 * 1024; // a layout or profile JSON is a few KB
 
-export class PayloadTooLargeError extends HttpError {
-  constructor(message: string) {
-    super(413, 'payload_too_large', message);
-  }
-}
+export { PayloadTooLargeError };
 
 export class BadUploadError extends HttpError {
   constructor(code: string, message: string) {
@@ -69,6 +65,8 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
   try {
     parser = busboy({
       headers: { 'content-type': contentType },
+      // Browsers and fetch send the file name as raw UTF-8 in filename="..."; busboy's default reads it as latin1.
+      defParamCharset: 'utf8',
       limits: { fileSize: limits.maxFileBytes, files: limits.maxFiles, fields: MAX_FIELDS, fieldSize: MAX_FIELD_BYTES },
     });
   } catch (error) {
@@ -86,6 +84,10 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
       if (failure) return;
       failure = error;
       body.unpipe(parser);
+      // No more parts: busboy may still be inside the chunk that held the bad field and would announce the next file
+      // part, whose stream then never ends because the body was cut off (the request hung, its spool file stayed).
+      parser.removeAllListeners('file');
+      parser.on('file', (_name: string, stream: Readable) => stream.resume());
       // A body over the size limit is cut off (the answer says "Connection: close"); any other refused body is
       // read to its end, up to 8 MB, so the client gets the answer on a connection it can keep using.
       if (error instanceof PayloadTooLargeError) body.destroy();
@@ -98,6 +100,10 @@ export async function readMultipart(request: Request, limits: UploadLimits, spoo
       else fields[name] = value;
     });
     parser.on('file', (name, stream, info) => {
+      if (failure) {
+        stream.resume();
+        return;
+      }
       if (name !== 'file') {
         stream.resume();
         fail(new BadUploadError('unexpected_part', `Unexpected file part "${name}"; send each recording as a part named "file".`));

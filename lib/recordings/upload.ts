@@ -10,6 +10,7 @@ import { enqueueRecording } from '@/lib/jobs/queue';
 import { wakeAppWorker } from '@/lib/jobs/start';
 import { getStore } from '@/lib/storage';
 import { requireAthlete } from '@/lib/auth/access';
+import { STALE_SPOOL_MS, sweepStaleSpools } from '@/lib/storage/spool';
 import { uploadFieldsSchema, type UploadFields } from './fields';
 import { BadUploadError, readMultipart, type ReceivedFile } from './multipart';
 import type { RecordingOptions } from './options';
@@ -104,10 +105,29 @@ async function keepFile(viewer: Viewer, athleteId: number, sessionId: number, fi
   }
 }
 
+/** Where uploads are spooled while they arrive (removed on every exit path of a request). */
+export function spoolDir(): string {
+  return join(getEnv().STORAGE_DIR, '.incoming');
+}
+
+const globalForSweeper = globalThis as typeof globalThis & { __stancelineSpoolSweeper?: NodeJS.Timeout };
+
+/** At server start and then every STALE_SPOOL_MS: removes spool files a crashed request left behind. */
+export function startSpoolSweeper(): void {
+  if (globalForSweeper.__stancelineSpoolSweeper) return;
+  const sweep = () =>
+    void sweepStaleSpools(spoolDir())
+      .then((n) => (n > 0 ? console.error(`[stanceline] removed ${n} stale upload spool file(s) from ${spoolDir()}`) : undefined))
+      .catch(() => undefined);
+  sweep();
+  globalForSweeper.__stancelineSpoolSweeper = setInterval(sweep, STALE_SPOOL_MS);
+  globalForSweeper.__stancelineSpoolSweeper.unref();
+}
+
 /** POST /api/recordings: read the form, check the athlete, keep every file, queue processing. */
 export async function receiveRecordings(viewer: Viewer, request: Request): Promise<UploadedRecording[]> {
   const env = getEnv();
-  const form = await readMultipart(request, { maxFileBytes: env.MAX_UPLOAD_BYTES, maxFiles: env.MAX_UPLOAD_FILES }, join(env.STORAGE_DIR, '.incoming'));
+  const form = await readMultipart(request, { maxFileBytes: env.MAX_UPLOAD_BYTES, maxFiles: env.MAX_UPLOAD_FILES }, spoolDir());
   try {
     const fields = uploadFieldsSchema.parse(form.fields);
     await requireAthlete(viewer, fields.athleteId, 'write');

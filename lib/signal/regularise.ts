@@ -62,6 +62,7 @@ function checkSensors(raw: RawRecording, layout: SensorLayout): void {
   if (missing.length) {
     throw new SignalInputError('sensor-missing', `layout "${layout.id}" has sensors the file lacks: ${missing.join(', ')}`, {
       line: raw.headerLine ?? null,
+      column: raw.headerLine != null ? 1 : null, // the header row as a whole lacks them
     });
   }
 }

@@ -2,7 +2,7 @@
 // known before the file is stored and nothing is held in memory. The caller moves the file into the store.
 import { createHash, randomUUID } from 'node:crypto';
 import { createWriteStream } from 'node:fs';
-import { mkdir, rm } from 'node:fs/promises';
+import { mkdir, readdir, rm, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { Transform, type Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
@@ -43,4 +43,33 @@ export async function spoolUpload(source: Readable, spoolDir: string): Promise<S
     throw error;
   }
   return { path, byteSize, sha256: hash.digest('hex'), head: Buffer.concat(headParts) };
+}
+
+/** A spool file not written to for this long belongs to a request that ended without cleaning up (a crash). */
+export const STALE_SPOOL_MS = 10 * 60 * 1000;
+
+/**
+ * Removes `*.part` spool files in `spoolDir` untouched for `olderThanMs` (run at server start and then every so
+ * often). The age keeps uploads that another app instance sharing the folder is still writing. Returns how many.
+ */
+export async function sweepStaleSpools(spoolDir: string, olderThanMs = STALE_SPOOL_MS, now = Date.now()): Promise<number> {
+  let names: string[];
+  try {
+    names = await readdir(spoolDir);
+  } catch {
+    return 0; // no spool folder yet
+  }
+  let removed = 0;
+  for (const name of names) {
+    if (!name.endsWith('.part')) continue;
+    const path = join(spoolDir, name);
+    try {
+      if (now - (await stat(path)).mtimeMs < olderThanMs) continue;
+      await rm(path, { force: true });
+      removed++;
+    } catch {
+      // gone meanwhile
+    }
+  }
+  return removed;
 }

@@ -2,6 +2,7 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import type { Annotation } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
+import { ZodError } from 'zod';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import type { AnnotationCreateInput, AnnotationPatchInput } from '@/lib/contracts/swings';
 
@@ -49,7 +50,21 @@ function pins(input: { timeS?: number | null; phase?: Annotation['phase'] | null
   return out;
 }
 
+/** A time pin is a moment of this swing: inside its window on the recording's time axis (422 on timeS otherwise). */
+async function checkPinTime(swingId: number, timeS: number | null | undefined): Promise<void> {
+  if (timeS === null || timeS === undefined) return;
+  const swing = await db('swings').where({ id: swingId }).first('start_s', 'end_s');
+  if (!swing) throw new NotFoundError('No swing with this id.');
+  const start = Number(swing.start_s);
+  const end = Number(swing.end_s);
+  if (!(timeS >= start && timeS <= end)) {
+    const message = `Pin the note to a moment of this swing, from ${start.toFixed(3)} s to ${end.toFixed(3)} s.`;
+    throw new ZodError([{ code: 'custom', path: ['timeS'], message, input: undefined }]);
+  }
+}
+
 export async function createAnnotation(viewer: Viewer, swingId: number, input: AnnotationCreateInput): Promise<Annotation> {
+  await checkPinTime(swingId, input.timeS);
   const [id] = await db('swing_annotations').insert({ swing_id: swingId, author_user_id: viewer.id, body: input.body, visibility: input.visibility, time_s: null, phase: null, ...pins(input) });
   return one(Number(id));
 }
@@ -64,6 +79,7 @@ async function noteOf(swingId: number, annotationId: number): Promise<{ author_u
 export async function updateAnnotation(viewer: Viewer, isCoach: boolean, swingId: number, annotationId: number, input: AnnotationPatchInput): Promise<Annotation> {
   const note = await noteOf(swingId, annotationId);
   if (!isCoach && Number(note.author_user_id) !== viewer.id) throw new ForbiddenError('Only the author or the athlete’s coach can change this note.');
+  await checkPinTime(swingId, input.timeS);
   const changes: Record<string, unknown> = { ...pins(input) };
   if (input.body !== undefined) changes.body = input.body;
   if (input.visibility !== undefined) changes.visibility = input.visibility;

@@ -24,6 +24,9 @@ export function labelsOf(row: Record<string, unknown> | undefined, hidden: boole
 
 /** Fields left out keep their value. */
 export async function applyLabels(trx: Knex.Transaction, swingId: number, userId: number, input: Partial<SwingLabelsInput>): Promise<void> {
+  // Concurrent edits of one swing queue on its row. Without this, two requests for a swing with no label row yet
+  // both took a gap lock with SELECT ... FOR UPDATE and then both inserted: ER_LOCK_DEADLOCK for one of them.
+  await trx('swings').where({ id: swingId }).forUpdate().first('id');
   const { notASwing, ...rest } = input;
   if (notASwing !== undefined) await trx('swings').where({ id: swingId }).update({ hidden: notASwing });
   if (Object.keys(rest).length === 0) return;

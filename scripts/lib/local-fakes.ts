@@ -1,6 +1,6 @@
 // Hook for local stand-ins of outside services (mail, payments, object storage) that later issues add.
 // Each fake starts on loopback and returns the env variables that point the app at it.
-import { join } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { startS3Fake } from './fakes/s3';
 
 export interface LocalFakes {
@@ -12,14 +12,29 @@ export interface LocalFakes {
 type FakeStarter = (dir: string) => Promise<{ name: string; env: Record<string, string>; stop(): Promise<void> } | null>;
 
 // Object storage: an S3 fake unless real S3 is configured (STORAGE_S3_BUCKET) or LOCAL_S3_FAKE=off asks for the
-// plain local folder (STORAGE_DIR) instead.
+// plain local folder (STORAGE_DIR) instead. Its files go to S3_FAKE_DIR when set, else to `s3` in the fakes' folder,
+// so two instances on one machine (another MARIADB_DIR, another checkout) never share a bucket folder.
+export function s3FakeDir(dir: string, env: Record<string, string | undefined> = process.env): string {
+  return env.S3_FAKE_DIR ? resolve(env.S3_FAKE_DIR) : join(dir, 's3');
+}
+
 const startS3 = (dir: string) =>
-  process.env.STORAGE_S3_BUCKET || process.env.LOCAL_S3_FAKE === 'off' ? Promise.resolve(null) : startS3Fake(join(dir, 's3'));
+  process.env.STORAGE_S3_BUCKET || process.env.LOCAL_S3_FAKE === 'off' ? Promise.resolve(null) : startS3Fake(s3FakeDir(dir));
 
 const STARTERS: FakeStarter[] = [startS3];
 
-/** Starts every fake; `dir` holds their files (default .data/fakes, kept between `npm start` runs). */
-export async function startLocalFakes(dir = join('.data', 'fakes')): Promise<LocalFakes> {
+/**
+ * The fakes' folder of `npm start`: LOCAL_FAKES_DIR, else next to a MARIADB_DIR that picks another database (so a
+ * second instance gets its own), else .data/fakes (kept between runs).
+ */
+export function defaultFakesDir(env: Record<string, string | undefined> = process.env): string {
+  if (env.LOCAL_FAKES_DIR) return resolve(env.LOCAL_FAKES_DIR);
+  if (env.MARIADB_DIR) return join(dirname(resolve(env.MARIADB_DIR)), `${resolve(env.MARIADB_DIR).split(/[\\/]/).pop()}-fakes`);
+  return join('.data', 'fakes');
+}
+
+/** Starts every fake; `dir` holds their files (default: defaultFakesDir()). */
+export async function startLocalFakes(dir = defaultFakesDir()): Promise<LocalFakes> {
   const started: NonNullable<Awaited<ReturnType<FakeStarter>>>[] = [];
   const stop = async () => {
     for (const fake of started.reverse()) await fake.stop().catch(() => undefined);

@@ -14,6 +14,7 @@ describe('lib/env parseEnv', () => {
       STORAGE_S3_REGION: 'us-east-1',
       MAX_UPLOAD_BYTES: 200 * 1024 * 1024,
       MAX_UPLOAD_FILES: 20,
+      TRUST_PROXY: 'false',
       WORKER_ENABLED: 'true',
       WORKER_POLL_MS: 1000,
       JOB_LOCK_TIMEOUT_S: 60,
@@ -27,6 +28,11 @@ describe('lib/env parseEnv', () => {
     );
     expect(parseEnv({ DATABASE_URL: url, STORAGE_S3_BUCKET: 'raw-files' }).STORAGE_S3_BUCKET).toBe('raw-files');
     expect(() => parseEnv({ DATABASE_URL: url, MAX_UPLOAD_BYTES: 'lots' })).toThrow(/MAX_UPLOAD_BYTES/);
+  });
+
+  it('TRUST_PROXY is true or false', () => {
+    expect(parseEnv({ DATABASE_URL: url, TRUST_PROXY: 'true' }).TRUST_PROXY).toBe('true');
+    expect(() => parseEnv({ DATABASE_URL: url, TRUST_PROXY: 'yes' })).toThrow(/TRUST_PROXY: must be true or false/);
   });
 
   it('names a missing DATABASE_URL', () => {

@@ -30,6 +30,11 @@ const APP_TABLES = [
   'drill_assignments',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
+// Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
+const ALTERATIONS: [string, string, string][] = [
+  // issue 11: users.session_version, checked against the token's version on every request
+  ['add_users_session_version', 'users', 'session_version'],
+];
 
 let scratch: ScratchDatabase;
 beforeAll(async () => {
@@ -42,11 +47,11 @@ afterAll(async () => {
 describe('migrations', () => {
   it('are timestamped .ts files, one per table, in schema order', async () => {
     const names = await new TsMigrationSource().getMigrations();
-    expect(names).toHaveLength(APP_TABLES.length);
-    names.forEach((name, index) => {
-      expect(name).toMatch(/^\d{14}_[a-z0-9_]+\.ts$/);
-      expect(name).toContain(APP_TABLES[index]);
-    });
+    expect(names).toHaveLength(APP_TABLES.length + ALTERATIONS.length);
+    for (const name of names) expect(name).toMatch(/^\d{14}_[a-z0-9_]+\.ts$/);
+    const creating = names.filter((name) => name.includes('_create_'));
+    creating.forEach((name, index) => expect(name).toContain(APP_TABLES[index]));
+    expect(names.filter((name) => !name.includes('_create_')).map((name) => name.slice(15, -3))).toEqual(ALTERATIONS.map(([part]) => part));
   });
 
   it('latest -> rollback all -> latest gives the same tables each way', async () => {
@@ -65,6 +70,11 @@ describe('migrations', () => {
   it('each down() removes exactly its own table, newest first', async () => {
     const { db } = scratch;
     await db.migrate.latest();
+    for (const [, table, column] of [...ALTERATIONS].reverse()) {
+      expect(await db.schema.hasColumn(table, column)).toBe(true);
+      await db.migrate.down();
+      expect(await db.schema.hasColumn(table, column)).toBe(false);
+    }
     for (let remaining = APP_TABLES.length; remaining > 0; remaining -= 1) {
       await db.migrate.down();
       expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining - 1), ...KNEX_TABLES].sort());

@@ -5,11 +5,12 @@ import { seedDemo } from '@/db/demo/seed-demo';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { signedIn, type HttpSession } from './support/http-session';
-import { serverDb, upload } from './support/recordings-http';
+import { serverDb, serverStore, upload } from './support/recordings-http';
 
-// 300 corrupted variants of one valid recording (fast-check, fixed seed: cut, duplicate, swap and garble lines and
-// cells). Each must end as a 4xx answer or a recording that is `ready` or `failed` with a reason; the server must stay
-// up and the database consistent (no result rows for a failed recording, no job left queued or running).
+// 1,000 corrupted variants of one valid recording (fast-check, fixed seed: cut, duplicate, swap and garble lines and
+// cells). Each must end as a 4xx answer or a recording that is `ready`, or `failed` with a reason naming its line and
+// column; the server must stay up and the database consistent (no result rows for a failed recording, no job left
+// queued or running), and every kept recording's raw file must still be in the store.
 
 const env = e2eEnv();
 let coach: HttpSession;
@@ -53,7 +54,8 @@ function apply(text: string, m: Mutation): string {
   return lines.join('\n');
 }
 
-const variants = fc.sample(fc.array(mutation, { minLength: 1, maxLength: 3 }), { seed: 20261202, numRuns: 300 }).map((ms) => ms.reduce(apply, base));
+const VARIANTS = 1000;
+const variants = fc.sample(fc.array(mutation, { minLength: 1, maxLength: 3 }), { seed: 20261202, numRuns: VARIANTS }).map((ms) => ms.reduce(apply, base));
 
 beforeAll(async () => {
   db = serverDb();
@@ -66,7 +68,7 @@ afterAll(async () => {
 });
 
 describe('fuzz: corrupted recordings', () => {
-  it('300 variants each end as a 4xx or ready/failed with a reason; server up; database consistent', async () => {
+  it(`${VARIANTS} variants each end as a 4xx or ready/failed with line and column; server up; database consistent; raw files kept`, { timeout: 900_000 }, async () => {
     const ids = new Set<number>();
     let sessionId: number | undefined;
     let refused = 0;
@@ -82,21 +84,23 @@ describe('fuzz: corrupted recordings', () => {
       for (const r of res.body.recordings) ids.add(r.id);
       sessionId = res.body.recordings[0].sessionId;
     }
-    expect(ids.size + refused).toBeGreaterThan(250); // identical variants collapse into one recording (same SHA-256)
+    expect(ids.size + refused).toBeGreaterThan(VARIANTS * 0.8); // identical variants collapse into one recording (same SHA-256)
 
     let listed: any;
-    const until = Date.now() + 240_000;
+    const until = Date.now() + 780_000;
     for (;;) {
       listed = (await coach.json(`/api/sessions/${sessionId}/recordings`)).body;
       if (listed.recordings.every((r: any) => r.status === 'ready' || r.status === 'failed')) break;
-      if (Date.now() > until) throw new Error('recordings still processing after 240 s');
+      if (Date.now() > until) throw new Error('recordings still processing after 780 s');
       await new Promise((r) => setTimeout(r, 500));
     }
     expect(listed.recordings).toHaveLength(ids.size);
     for (const r of listed.recordings) {
       if (r.status === 'failed') {
         expect(r.error.message.length).toBeGreaterThan(5);
-        if (r.error.line !== null) expect(r.error.line).toBeGreaterThanOrEqual(1);
+        expect(r.error.message.length).toBeLessThan(400);
+        expect({ id: r.id, message: r.error.message, line: r.error.line >= 1, column: r.error.column >= 1 }).toEqual({ id: r.id, message: r.error.message, line: true, column: true });
+        expect(r.error.message).toMatch(new RegExp(`^line ${r.error.line}, column ${r.error.column}: `));
         expect(r.swingCount).toBe(0);
       }
     }
@@ -113,6 +117,18 @@ describe('fuzz: corrupted recordings', () => {
     expect(await db('recording_series').whereIn('recording_id', readyIds).count({ n: '*' })).toEqual([{ n: readyIds.length }]);
     expect(failedIds.length).toBeGreaterThan(0);
     expect(readyIds.length).toBeGreaterThan(0);
+    // nothing half-written: every failed job failed once with its reason, no recording without its job
+    const jobs = await db('processing_jobs').whereIn('recording_id', [...ids]).select('recording_id', 'state', 'attempts');
+    expect(jobs).toHaveLength(ids.size);
+    for (const job of jobs) expect(job.state === 'done' || (job.state === 'failed' && job.attempts === 1), JSON.stringify(job)).toBe(true);
+    // the raw file of every kept recording is still in the store, at its recorded size
+    const store = serverStore();
+    if (store) {
+      const kept = await db('recordings').whereIn('id', [...ids]).select('storage_key');
+      const missing: string[] = [];
+      for (const { storage_key: key } of kept) if (!(await store.exists(key))) missing.push(key);
+      expect(missing).toEqual([]);
+    }
     expect((await coach.json('/api/me')).status).toBe(200);
   });
 });

@@ -1,4 +1,7 @@
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
+import { mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import knex, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -7,11 +10,14 @@ import { knexConfig } from '@/knexfile';
 import { analyzeOptionsOf, profileOf, recordingOptionsSchema, resolveLayout } from '@/lib/recordings/options';
 import { readStoredRecording } from '@/lib/recordings/stored-text';
 import { analyzeRecording, DISTRACTORS, generateSession, roundAnalysis } from '@/lib/signal';
+import { createS3Store } from '@/lib/storage/s3';
+import type { RawFileStore } from '@/lib/storage/types';
+import { startS3Fake } from '@/scripts/lib/fakes/s3';
 import { findFreePort } from '@/scripts/lib/free-port';
 import { processGroupMembers, startAppServer, type AppServer } from './support/app-server';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { signedIn, type HttpSession } from './support/http-session';
-import { serverStore, upload } from './support/recordings-http';
+import { upload } from './support/recordings-http';
 
 // Kill test: the app server process dies (SIGKILL to its whole process group: no clean-up, no graceful
 // shutdown) while its in-app worker processes a long recording. The job must be neither lost nor stuck: once its
@@ -25,6 +31,10 @@ import { serverStore, upload } from './support/recordings-http';
 // restarts) itself, on a fresh database of the same MariaDB (stanceline_k<random>, migrated and seeded with the demo;
 // the app user may create stanceline_* databases), with the same built app, the same secret and the same raw-file
 // store (keys are random UUIDs, so nothing collides). The harness's server is left untouched and never sees the job.
+//
+// Storage is S3 here, always: the test starts its own S3 fake (s3rver) in a folder of its own, so it can check on the
+// fake's disk that the raw file was complete in the bucket before the job row was written, and still there after
+// the crash.
 
 const env = e2eEnv();
 const LOCK_TIMEOUT_S = 5; // the smallest lib/env.ts accepts; the restarted worker takes the job over after it
@@ -51,10 +61,29 @@ let scratchName = '';
 let scratchUrl = '';
 const servers: AppServer[] = [];
 let storageKey: string | null = null;
+let s3: Awaited<ReturnType<typeof startS3Fake>> | null = null;
+let s3Dir = '';
+let store: RawFileStore;
+
+/** The s3rver file holding an object's bytes (it keeps <bucket>/<key>._S3rver_object on disk). */
+function objectFile(key: string): string | null {
+  const walk = (dir: string): string | null => {
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      const path = join(dir, entry.name);
+      if (entry.isDirectory()) {
+        const found = walk(path);
+        if (found) return found;
+      } else if (path.endsWith(`${key.split('/').pop()}._S3rver_object`)) return path;
+    }
+    return null;
+  };
+  return walk(s3Dir);
+}
 
 function appEnv(port: number): NodeJS.ProcessEnv {
   return {
-    ...process.env, // NEXTAUTH_SECRET, the S3 fake (or STORAGE_DIR) of the harness
+    ...process.env, // NEXTAUTH_SECRET of the harness
+    ...s3!.env, // this test's own S3 fake
     DATABASE_URL: scratchUrl,
     NEXTAUTH_URL: `http://127.0.0.1:${port}`,
     PORT: String(port),
@@ -88,6 +117,15 @@ async function recordingStatus(session: HttpSession, id: number): Promise<{ stat
 }
 
 beforeAll(async () => {
+  s3Dir = mkdtempSync(join(tmpdir(), 'stanceline-kill-s3-'));
+  s3 = await startS3Fake(s3Dir);
+  store = createS3Store({
+    bucket: s3.env.STORAGE_S3_BUCKET,
+    endpoint: s3.env.STORAGE_S3_ENDPOINT,
+    region: s3.env.STORAGE_S3_REGION,
+    accessKeyId: s3.env.STORAGE_S3_ACCESS_KEY_ID,
+    secretAccessKey: s3.env.STORAGE_S3_SECRET_ACCESS_KEY,
+  });
   const base = new URL(env.DATABASE_URL);
   scratchName = `stanceline_k${randomBytes(4).toString('hex')}`;
   admin = knex(knexConfig(base.href));
@@ -103,7 +141,9 @@ beforeAll(async () => {
 afterAll(async () => {
   // Everything this file started, also when a test failed half-way: servers, the raw file, the scratch database.
   for (const server of servers) await server.stop().catch((error: unknown) => console.error('stopping a test server:', error));
-  if (storageKey) await serverStore()?.remove(storageKey).catch(() => undefined);
+  if (storageKey) await store?.remove(storageKey).catch(() => undefined);
+  await s3?.stop().catch(() => undefined);
+  if (s3Dir) rmSync(s3Dir, { recursive: true, force: true });
   await db?.destroy();
   if (scratchName) await admin?.raw('DROP DATABASE IF EXISTS ??', [scratchName]);
   await admin?.destroy();
@@ -121,6 +161,22 @@ describe('the app server killed while it processes a recording', () => {
     expect(res.body.recordings[0]).toMatchObject({ filename: 'long-lesson.csv', status: 'received', duplicate: false });
     const id: number = res.body.recordings[0].id;
     storageKey = (await db('recordings').where({ id }).first('storage_key')).storage_key;
+
+    // The raw file is in the bucket, whole, and was complete there before the job was queued: the fake's object file
+    // was last written before the job row's created_at (both clocks are this machine's; MariaDB keeps milliseconds).
+    const key = storageKey!;
+    expect(await store.exists(key)).toBe(true);
+    const file = objectFile(key);
+    expect(file, `no object file for ${key} under ${s3Dir}`).not.toBeNull();
+    const queuedAt = new Date((await db('processing_jobs').where({ recording_id: id }).first('created_at')).created_at).getTime();
+    expect(statSync(file!).mtimeMs).toBeLessThanOrEqual(queuedAt);
+    const sha = async () => {
+      const hash = createHash('sha256');
+      for await (const chunk of await store.read(key)) hash.update(chunk as Buffer);
+      return hash.digest('hex');
+    };
+    const expectedSha = createHash('sha256').update(lessonCsv).digest('hex');
+    expect(await sha()).toBe(expectedSha);
 
     // The API must say `processing` (the worker claimed the job) before the kill.
     await until('GET /api/recordings/:id to say processing', async () => {
@@ -142,6 +198,7 @@ describe('the app server killed while it processes a recording', () => {
     const killedRecording = await db('recordings').where({ id }).first('status');
     expect(['processing', 'received']).toContain(killedRecording.status);
     expect(await db('swings').where({ recording_id: id }).count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(await sha()).toBe(expectedSha); // the raw file survived the crash, unchanged
 
     // Restart on the same address; the session cookie (a JWT signed with the same secret) still works.
     const second = await startServer(port);

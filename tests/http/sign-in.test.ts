@@ -97,6 +97,68 @@ describe('sign-in over HTTP', () => {
     expect((await new HttpSession(baseUrl).signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
   });
 
+  it('40 concurrent wrong passwords for one email: at most 10 are evaluated (was: all 40)', async () => {
+    await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+    const results = await Promise.all(Array.from({ length: 40 }, (_, i) => new HttpSession(baseUrl).signIn(PROBE_EMAIL, `wrong-${i}`)));
+    const evaluated = results.filter((r) => r.error === 'CredentialsSignin');
+    expect(evaluated.length).toBeLessThanOrEqual(10);
+    expect(results.every((r) => r.error === 'CredentialsSignin' || /^rate-limited-email-\d+$/.test(r.error ?? ''))).toBe(true);
+    expect(await db('login_attempts').where({ email: PROBE_EMAIL }).count({ n: '*' })).toEqual([{ n: evaluated.length }]);
+    await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+  });
+
+  it('a client-written X-Forwarded-For is not taken as its address (TRUST_PROXY is off)', async () => {
+    await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+    const session = new HttpSession(baseUrl);
+    const csrf = (await (await session.fetch('/api/auth/csrf')).json()) as { csrfToken: string };
+    await session.fetch('/api/auth/callback/credentials', {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': '203.0.113.77' },
+      body: new URLSearchParams({ csrfToken: csrf.csrfToken, email: PROBE_EMAIL, password: 'wrong', json: 'true' }),
+    });
+    const rows = await db('login_attempts').where({ email: PROBE_EMAIL }).select('ip');
+    expect(rows).toHaveLength(1);
+    expect(rows[0].ip).not.toBe('203.0.113.77');
+    expect(rows[0].ip).toMatch(/127\.0\.0\.1$/); // the test connects over loopback
+    await db('login_attempts').where({ email: PROBE_EMAIL }).delete();
+  });
+
+  it('a copied session token stops working once its user signs out (was: valid for up to 8 h)', async () => {
+    const session = new HttpSession(baseUrl);
+    expect((await session.signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+    const copied = session.cookieHeader();
+    const withCopy = () => fetch(`${baseUrl}/api/me`, { headers: { cookie: copied } }).then((r) => r.status);
+    expect(await withCopy()).toBe(200);
+    const csrf = (await (await session.fetch('/api/auth/csrf')).json()) as { csrfToken: string };
+    const out = await session.fetch('/api/auth/signout', {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded' },
+      body: new URLSearchParams({ csrfToken: csrf.csrfToken, json: 'true' }),
+    });
+    expect(out.status).toBeLessThan(400);
+    expect(await withCopy()).toBe(401);
+    // signing in again gives a working session under the new version
+    const again = new HttpSession(baseUrl);
+    expect((await again.signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+    expect((await again.json('/api/me')).status).toBe(200);
+  });
+
+  it('deactivating and reactivating an account does not revive its old tokens', async () => {
+    const session = new HttpSession(baseUrl);
+    expect((await session.signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+    expect((await session.json('/api/me')).status).toBe(200);
+    const adminSession = new HttpSession(baseUrl);
+    expect((await adminSession.signIn(DEMO.admin, DEMO_PASSWORD)).ok).toBe(true);
+    const probe = await db('users').where({ email: PROBE_EMAIL }).first('id');
+    const patch = (active: boolean) =>
+      adminSession.json(`/api/users/${probe.id}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ active }) });
+    expect((await patch(false)).status).toBe(200);
+    expect((await session.json('/api/me')).status).toBe(401);
+    expect((await patch(true)).status).toBe(200);
+    expect((await session.json('/api/me')).status).toBe(401); // the old token stays dead
+    expect((await new HttpSession(baseUrl).signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+  });
+
   it('a deactivated account cannot sign in', async () => {
     await db('users').where({ email: PROBE_EMAIL }).update({ active: false });
     const result = await new HttpSession(baseUrl).signIn(PROBE_EMAIL, PROBE_PASSWORD);

@@ -117,6 +117,28 @@ describe('authorizeCredentials against MariaDB', () => {
     expect(await authorizeCredentials({ email: 'coach@stanceline.test', password: 'stanceline-demo' }, '10.0.0.1', now)).toBeNull();
   });
 
+  it('40 concurrent wrong passwords for one email: at most 10 are evaluated, the rest refused (was: all 40)', async () => {
+    const outcomes = await Promise.allSettled(
+      Array.from({ length: 40 }, (_, i) => authorizeCredentials({ email: 'coach@stanceline.test', password: `wrong-${i}` }, `10.1.0.${i}`, now)),
+    );
+    const evaluated = outcomes.filter((o) => o.status === 'fulfilled');
+    const refused = outcomes.filter((o) => o.status === 'rejected');
+    expect(evaluated.length).toBeLessThanOrEqual(10);
+    expect(evaluated.length).toBeGreaterThan(0);
+    for (const o of refused) expect(String((o as PromiseRejectedResult).reason)).toMatch(/rate-limited-email-\d+/);
+    expect(await db('login_attempts').where({ email: 'coach@stanceline.test' }).count({ n: '*' }).first()).toMatchObject({ n: evaluated.length });
+  });
+
+  it('with 45 failures from one IP, 20 concurrent attempts over other emails: at most 5 more are evaluated', async () => {
+    const rows = Array.from({ length: 45 }, (_, i) => ({ email: `spray-${i}@example.test`, ip: '10.7.7.7', succeeded: false, attempted_at: new Date(now.getTime() - 60_000 + i * 100) }));
+    await db('login_attempts').insert(rows);
+    const outcomes = await Promise.allSettled(
+      Array.from({ length: 20 }, (_, i) => authorizeCredentials({ email: `other-${i}@example.test`, password: 'nope' }, '10.7.7.7', now)),
+    );
+    expect(outcomes.filter((o) => o.status === 'fulfilled').length).toBeLessThanOrEqual(5);
+    expect(await db('login_attempts').where({ ip: '10.7.7.7' }).count({ n: '*' }).first()).toMatchObject({ n: 50 });
+  });
+
   it('malformed input is a coded error, not a crash', async () => {
     await expect(authorizeCredentials({ email: 'not an email', password: '' }, '10.0.0.1', now)).rejects.toThrow('invalid-input');
   });

@@ -313,3 +313,56 @@ describe('parseRecording: long files (the tokeniser works through pieces of the 
     throw new Error('expected the streamed read to fail');
   });
 });
+
+describe('hardening: huge cells and lines, CR-only files, implausible values (issue 11)', () => {
+  // File: 5 metadata lines (1-5), header (6), data rows from line 7.
+  const withRow = (k: number, row: string) => {
+    const lines = [...meta, header, ...rows(12)];
+    lines[6 + k] = row;
+    return lines.join('\n') + '\n';
+  };
+
+  it('a 50,000-character cell: the message quotes at most 80 characters and keeps line and column', () => {
+    const big = 'x'.repeat(50_000);
+    const e = expectErr(withRow(3, `0.03,${big},20,33,40`), 'non-numeric', 10, 2);
+    expect(e.message.length).toBeLessThan(200);
+    expect(e.message).toMatch(/^line 10, column 2: "x{80}…" \(50000 characters\) is not a number$/);
+    // a 100,000-character cell makes its line longer than the line limit: refused by line number, just as short
+    const e2 = expectErr(withRow(3, `0.03,${'x'.repeat(100_000)},20,33,40`), 'line-too-long', 10, 65_537);
+    expect(e2.message.length).toBeLessThan(200);
+  });
+
+  it('a line over 64 KiB is refused with its number, in one piece or pushed in chunks', () => {
+    const long = `0.03,${'1'.repeat(70_000)},20,33,40`;
+    expectErr(withRow(3, long), 'line-too-long', 10, 65_537);
+    // 30 MB without any newline, pushed in 1 MB chunks: refused as soon as the pending line passes the limit
+    const reader = createRecordingReader();
+    reader.push([...meta, header].join('\n') + '\n');
+    const chunk = '1,'.repeat(512 * 1024);
+    const e = errorOf(() => {
+      for (let i = 0; i < 30; i++) reader.push(chunk);
+    });
+    expect({ code: e.code, line: e.line }).toEqual({ code: 'line-too-long', line: 7 });
+  });
+
+  it('a file with CR-only line ends says so, with line 1 and the column of the first CR (was "no header row")', () => {
+    const crOnly = [...meta, header, ...rows(12)].join('\r') + '\r';
+    const e = expectErr(crOnly, 'cr-line-ends', 1, meta[0].length + 1);
+    expect(e.message).toMatch(/carriage return \(CR\) only/);
+    // CRLF stays fine
+    expect(parseRecording([...meta, header, ...rows(12)].join('\r\n') + '\r\n').time.length).toBe(12);
+  });
+
+  it('a clearly negative force (-500 N) is refused with line and column; small offsets below zero are kept', () => {
+    const e = expectErr(withRow(2, '0.02,10,-500,32,40'), 'negative-reading', 9, 3);
+    expect(e.message).toMatch(/"-500" is below -10/);
+    expect(parseRecording(withRow(2, '0.02,10,-0.4,32,40')).channels[1][2]).toBe(-0.4);
+  });
+
+  it('sample_rate_hz 1e12 is refused on its metadata line', () => {
+    const text = [meta[0], '# sample_rate_hz: 1e12', ...meta.slice(2), header, ...rows(12)].join('\n');
+    const e = expectErr(text, 'bad-metadata', 2, 1);
+    expect(e.message).toMatch(/at most 10000 Hz/);
+    expect(parseRecording([meta[0], '# sample_rate_hz: 500', header, ...rows(12)].join('\n')).metadata.sample_rate_hz).toBe('500');
+  });
+});

@@ -1,15 +1,11 @@
 import type { Metadata } from 'next';
 import { SignInForm } from '@/components/auth/sign-in-form';
+import { safeCallbackPath } from '@/lib/auth/callback-url';
 import { describeSignInError } from '@/lib/auth/sign-in-errors';
 
 export const metadata: Metadata = { title: 'Sign in' };
 export const dynamic = 'force-dynamic';
 
-/** Only same-site paths are accepted as a destination after sign-in (no open redirect). */
-function safeCallback(raw: string | string[] | undefined): string {
-  const value = Array.isArray(raw) ? raw[0] : raw;
-  return value && value.startsWith('/') && !value.startsWith('//') ? value : '/';
-}
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const params = await searchParams;
@@ -18,7 +14,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
     <>
       <h1 className="mb-1 text-lg font-semibold">Sign in</h1>
       <p className="mb-5 text-sm text-ink-muted">Use the account your academy created for you.</p>
-      <SignInForm callbackUrl={safeCallback(params.callbackUrl)} initialError={error} />
+      <SignInForm callbackUrl={safeCallbackPath(params.callbackUrl)} initialError={error} />
     </>
   );
 }

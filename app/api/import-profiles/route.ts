@@ -6,7 +6,7 @@ import { importProfileSchema } from '@/lib/signal';
 
 export const dynamic = 'force-dynamic';
 
-const saveSchema = z.object({
+const saveSchema = z.strictObject({
   name: z.string().trim().min(1, { error: 'Give the profile a name.' }).max(80, { error: 'Use at most 80 characters.' }),
   profile: importProfileSchema,
 });

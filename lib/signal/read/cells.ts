@@ -62,6 +62,22 @@ function strictCellNumber(raw: string, decimalComma: boolean): number | null {
   return null;
 }
 
+/** Longest piece of the file quoted in a message: a 100,000-character cell must not travel into logs and rows. */
+export const QUOTE_MAX_CHARS = 80;
+
+/** A cell or name for a message: trimmed and cut to QUOTE_MAX_CHARS, saying how long it was when cut. */
+export function quote(text: string): string {
+  const t = text.trim();
+  if (t.length <= QUOTE_MAX_CHARS) return `"${t}"`;
+  return `"${t.slice(0, QUOTE_MAX_CHARS)}…" (${t.length} characters)`;
+}
+
+/**
+ * Highest nominal rate accepted in `sample_rate_hz`. Pressure insoles record at 50-500 Hz (the format's scope); 10 kHz
+ * leaves room for any lab system (common practice) while refusing typos such as 1e12.
+ */
+export const MAX_SAMPLE_RATE_HZ = 10_000;
+
 /** Delimiter of a header or first data line: tab if present, else semicolon if present, else comma. */
 export function detectDelimiter(line: string): string {
   if (line.includes('\t')) return '\t';
@@ -81,7 +97,7 @@ export function metadataEntry(line: string): [string, string] | null {
  */
 export function checkedMetadataValue(key: string, value: string, line: number): string {
   const bad = (what: string) =>
-    new SignalInputError('bad-metadata', `metadata "${key}" ${what}, got "${value}"`, { line, column: 1 });
+    new SignalInputError('bad-metadata', `metadata ${quote(key)} ${what}, got ${quote(value)}`, { line, column: 1 });
   switch (key) {
     case 'format':
       if (value !== 'stanceline-insole/1') throw bad('must be stanceline-insole/1');
@@ -97,7 +113,12 @@ export function checkedMetadataValue(key: string, value: string, line: number): 
       if (v !== 'right' && v !== 'left') throw bad('must be right or left');
       return v;
     }
-    case 'sample_rate_hz':
+    case 'sample_rate_hz': {
+      const v = cellNumber(value, false);
+      if (v === null || !(v > 0)) throw bad('must be a positive number');
+      if (v > MAX_SAMPLE_RATE_HZ) throw bad(`must be at most ${MAX_SAMPLE_RATE_HZ} Hz (insoles record at 50-500 Hz)`);
+      return value;
+    }
     case 'stance_width_mm': {
       const v = cellNumber(value, false);
       if (v === null || !(v > 0)) throw bad('must be a positive number');

@@ -1,6 +1,7 @@
 // Which field holds what: from a format-1 header row, or from an import profile.
 import { SignalInputError } from '../errors';
 import type { ImportProfile } from '../types';
+import { quote } from './cells';
 
 export interface ColumnPlan {
   /** 0-based field indexes */
@@ -22,7 +23,7 @@ const SENSOR = /^[LR][1-9][0-9]*$/;
 export function planFromHeader(fields: string[], line: number): ColumnPlan {
   const names = fields.map((f) => f.trim());
   if (names[0]?.toLowerCase() !== 'time_s') {
-    throw new SignalInputError('missing-header', `expected a header row starting with time_s, got "${names[0] ?? ''}"`, {
+    throw new SignalInputError('missing-header', `expected a header row starting with time_s, got ${quote(names[0] ?? '')}`, {
       line,
       column: 1,
     });
@@ -35,7 +36,7 @@ export function planFromHeader(fields: string[], line: number): ColumnPlan {
     const name = names[i];
     const upper = name.toUpperCase();
     const where = { line, column: i + 1 };
-    if (seen.has(upper)) throw new SignalInputError('duplicate-column', `column "${name}" appears twice`, where);
+    if (seen.has(upper)) throw new SignalInputError('duplicate-column', `column ${quote(name)} appears twice`, where);
     seen.add(upper);
     if (upper === 'IMPACT') impact = i;
     else if (SENSOR.test(upper)) {
@@ -46,7 +47,7 @@ export function planFromHeader(fields: string[], line: number): ColumnPlan {
     } else {
       throw new SignalInputError(
         'unknown-column',
-        `unknown column "${name}": expected time_s, L<n>, R<n> or impact`,
+        `unknown column ${quote(name)}: expected time_s, L<n>, R<n> or impact`,
         where,
       );
     }
@@ -65,7 +66,7 @@ export function planFromProfile(profile: ImportProfile, headerFields: string[] |
     if (typeof ref === 'number') return ref - 1;
     const i = names ? names.indexOf(ref) : -1;
     if (i < 0) {
-      throw new SignalInputError('missing-column', `the header has no column "${ref}" (import profile ${what})`, { line });
+      throw new SignalInputError('missing-column', `the header has no column ${quote(String(ref))} (import profile ${what})`, { line });
     }
     return i;
   };

@@ -5,7 +5,7 @@
 import Papa from 'papaparse';
 import { SignalInputError } from '../errors';
 import type { ImportProfile, RawRecording, Units } from '../types';
-import { cellNumber, checkedMetadataValue, detectDelimiter, metadataEntry } from './cells';
+import { cellNumber, checkedMetadataValue, detectDelimiter, metadataEntry, quote } from './cells';
 import { planFromHeader, planFromProfile, type ColumnPlan } from './columns';
 import { Growable } from './growable';
 
@@ -17,6 +17,19 @@ export const MIN_SAMPLES = 10;
  * row arrays die young (a cheap minor GC), large enough that the per-call cost is spread over ~150 rows.
  */
 const PIECE = 16_384;
+
+/**
+ * Longest line accepted, in characters (64 Ki; a 16-sensor pair at full precision needs well under 1 Ki). A longer line
+ * is refused with its number instead of being held, tokenised and quoted whole (a 30 MB line without a newline).
+ */
+export const MAX_LINE_CHARS = 65_536;
+
+/**
+ * Most negative sensor value accepted, in the file's units (N or kPa). A calibrated insole reads a little below zero
+ * when a sensor is unloaded (offset drift; common practice to tolerate a few units); a clearly negative force or
+ * pressure is a wrong sign, a wrong column or a broken sensor, and would pull the centre of pressure off the foot.
+ */
+export const MAX_NEGATIVE_READING = 10;
 
 export interface RecordingReader {
   push(chunk: string): void;
@@ -66,6 +79,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
   /** Lines before the data: metadata, blank lines, then the header row (or, for a headerless profile, data). */
   const preambleLine = (text: string): boolean => {
     line++;
+    checkLine(text, line);
     const trimmed = text.trim();
     if (trimmed === '') return false;
     lastContentLine = line;
@@ -118,7 +132,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
     if (t !== t) throw new SignalInputError('missing-time', 'the time cell is empty', { line, column: p.time + 1 });
     const ts = t * p.timeScale;
     if (!(ts > prevTime)) {
-      throw new SignalInputError('time-not-increasing', `time ${fields[p.time].trim()} is not after the previous row's`, {
+      throw new SignalInputError('time-not-increasing', `time ${quote(fields[p.time])} is not after the previous row's`, {
         line,
         column: p.time + 1,
       });
@@ -128,12 +142,13 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
     for (let c = 0; c < sensors.length; c++) {
       const v = cellNumber(fields[sensors[c]], decimalComma);
       if (v === null) throw nonNumeric(fields[sensors[c]], line, sensors[c]);
+      if (v < -MAX_NEGATIVE_READING) throw negativeReading(fields[sensors[c]], line, sensors[c]);
       channels[c].push(v);
     }
     if (impact) {
       const v = cellNumber(fields[p.impact], decimalComma);
       if (v === null || (v !== 0 && v !== 1 && v === v)) {
-        throw new SignalInputError('bad-impact', `impact must be 0, 1 or empty, got "${fields[p.impact].trim()}"`, {
+        throw new SignalInputError('bad-impact', `impact must be 0, 1 or empty, got ${quote(fields[p.impact])}`, {
           line,
           column: p.impact + 1,
         });
@@ -166,6 +181,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
       const piece = to < 0 ? (from === 0 ? text : text.slice(from)) : text.slice(from, to);
       if (piece === '') line++; // the empty line after a final newline; papaparse returns no row for ''
       else {
+        if (piece.length > MAX_LINE_CHARS) checkLines(piece, line);
         const rows = tokenise(piece);
         for (let r = 0; r < rows.length; r++) dataRow(rows[r], p);
       }
@@ -184,8 +200,10 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
       const nl = chunk.lastIndexOf('\n');
       if (nl < 0) {
         pending += chunk;
+        if (pending.length > MAX_LINE_CHARS) checkLine(pending, line + 1);
         return;
       }
+      if (pending.length + chunk.indexOf('\n') > MAX_LINE_CHARS) checkLine(pending + chunk.slice(0, chunk.indexOf('\n')), line + 1);
       // The carried-over partial line ends at the chunk's first newline; the lines after it are handed on as a
       // slice of the chunk, so the chunk's text is never copied.
       const first = chunk.indexOf('\n');
@@ -196,7 +214,10 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
     end(): RawRecording {
       if (ended) throw new RangeError('end() called twice');
       ended = true;
-      if (pending !== '') block(pending);
+      if (pending !== '') {
+        checkLine(pending, line + 1);
+        block(pending);
+      }
       pending = '';
       if (lastContentLine === 0) throw new SignalInputError('empty-file', 'the file is empty', { line: 1, column: 1 });
       if (!plan) {
@@ -230,6 +251,48 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
   };
 }
 
+/**
+ * One line's own checks, before it is tokenised: a carriage return inside it means the file ends its lines in CR
+ * only (old Mac style), which would otherwise read as one endless line; then the length limit.
+ */
+function checkLine(text: string, lineNo: number): void {
+  const cr = text.indexOf('\r');
+  if (cr >= 0 && cr < text.length - 1) {
+    throw new SignalInputError('cr-line-ends', 'lines end in a carriage return (CR) only; save the file with LF or CRLF line ends', {
+      line: lineNo,
+      column: cr + 1,
+    });
+  }
+  if (text.length > MAX_LINE_CHARS) {
+    throw new SignalInputError('line-too-long', `the line is longer than ${MAX_LINE_CHARS} characters (a missing line break?)`, {
+      line: lineNo,
+      column: MAX_LINE_CHARS + 1,
+    });
+  }
+}
+
+/** checkLine for every line of a block of whole lines, the first of which is line `lineBefore` + 1. */
+function checkLines(text: string, lineBefore: number): void {
+  let from = 0;
+  let n = lineBefore;
+  for (;;) {
+    const nl = text.indexOf('\n', from);
+    const end = nl < 0 ? text.length : nl;
+    n++;
+    if (end - from > MAX_LINE_CHARS) checkLine(text.slice(from, end), n);
+    if (nl < 0) return;
+    from = nl + 1;
+  }
+}
+
+function negativeReading(cell: string, line: number, index: number): SignalInputError {
+  return new SignalInputError(
+    'negative-reading',
+    `${quote(cell)} is below -${MAX_NEGATIVE_READING}: a sensor reads force or pressure, which cannot be clearly negative (wrong sign or column?)`,
+    { line, column: index + 1 },
+  );
+}
+
 function stripCr(fields: string[]): string[] {
   const last = fields.length - 1;
   if (last >= 0 && fields[last].charCodeAt(fields[last].length - 1) === 13) fields[last] = fields[last].slice(0, -1);
@@ -237,5 +300,5 @@ function stripCr(fields: string[]): string[] {
 }
 
 function nonNumeric(cell: string, line: number, index: number): SignalInputError {
-  return new SignalInputError('non-numeric', `"${cell.trim()}" is not a number`, { line, column: index + 1 });
+  return new SignalInputError('non-numeric', `${quote(cell)} is not a number`, { line, column: index + 1 });
 }

@@ -41,10 +41,10 @@ export const sensorLayoutSchema = z
 const columnRef = z.union([z.number().int().min(1), z.string().min(1)]);
 
 export const importProfileSchema = z
-  .object({
+  .strictObject({
     delimiter: z.enum([',', '\t', ';', '|', ' ']).optional(),
     header: z.boolean(),
-    time: z.object({ column: columnRef, unit: z.enum(['s', 'ms']) }),
+    time: z.strictObject({ column: columnRef, unit: z.enum(['s', 'ms']) }),
     units: z.enum(['N', 'kPa']),
     sensors: z
       .record(z.string().regex(/^[LR][1-9][0-9]*$/, 'sensor id must be L<n> or R<n>'), columnRef)

@@ -120,7 +120,7 @@ export async function assignDrill(viewer: Viewer, athleteId: number, drillId: nu
 
 /** Student: own assignment, practiceDone + note only. Coach of the athlete: dueDate (and may also reset done). */
 export async function updateAssignment(viewer: Viewer, id: number, patch: { practiceDone?: boolean; studentNote?: string; dueDate?: string }): Promise<DrillAssignment> {
-  const { access } = await requireAssignment(viewer, id);
+  const { row, access } = await requireAssignment(viewer, id);
   const columns: Record<string, unknown> = {};
   if (access === 'student') {
     if (patch.dueDate !== undefined) throw new ForbiddenError('Only your coach can move the due date; you can mark practice done and add a note.');

@@ -66,7 +66,7 @@ describe('dates and note times are checked, not stored or answered with a 500', 
     const id = (ok.body as any).assignment.id;
     const moved = await sendJson(coach, 'PATCH', `/api/drill-assignments/${id}`, { dueDate: '2001-01-01' });
     expect(moved.status).toBe(422);
-    expect((await db('drill_assignments').where({ id }).first('due_date')).due_date).toBe('2099-01-01');
+    expect((await db('drill_assignments').where({ id }).first('due_date'))?.due_date).toBe('2099-01-01');
   });
 
   it('a note pinned outside its swing (-1 s, 1e308 s) is a 422 on timeS and nothing is stored', async () => {

@@ -106,6 +106,7 @@ export const scoreResponseSchema = z.object({
       summary: scoreSummarySchema,
     })
     .nullable(),
-  band: bandFitSchema.extend({ id: z.number(), name: z.string(), byCurve: z.record(z.string(), bandFitSchema) }).nullable(),
+  /** the lead % curve's fit, and each curve's with the number of registered points compared */
+  band: bandFitSchema.extend({ id: z.number(), name: z.string(), byCurve: z.record(z.string(), bandFitSchema.extend({ points: z.number() })) }).nullable(),
 });
 export type ScoreResponse = z.infer<typeof scoreResponseSchema>;

@@ -26,7 +26,7 @@ export const measureLabels: Record<Measure, string> = {
   trailHeelPct: 'Trail heel %',
   copSide: 'COP side (% of half stance)',
 };
-export const eventLabels: Record<EventName, string> = Object.fromEntries(EVENT_NAMES.map((e) => [e, e[0].toUpperCase() + e.slice(1)])) as Record<EventName, string>;
+export { eventLabels } from './swings';
 
 // --- request bodies ---
 // POST /api/targets and PATCH /api/targets/:id (and the target form). Percentages 0-100; copSide -150..150 (% of half

@@ -1,12 +1,5 @@
-export const eventLabels = { address: 'Address', top: 'Top', transition: 'Transition', impact: 'Impact', finish: 'Finish' } as const;
-
-// Each phase runs from one event to the next (lib/signal/types.ts PHASES).
-export const phaseLabels = {
-  backswing: { name: 'Backswing', span: 'address → top' },
-  transition: { name: 'Transition', span: 'top → transition' },
-  downswing: { name: 'Downswing', span: 'transition → impact' },
-  'follow-through': { name: 'Follow-through', span: 'impact → finish' },
-} as const;
+// Event and phase names on screen derive from lib/signal/types.ts (EVENT_NAMES, PHASES) in the swings contract.
+export { eventLabels, phaseLabels } from '@/lib/contracts/swings';
 
 // Names of the processing parameters as lib/signal/analyze.ts records them, with their units.
 export const parameterLabels: Record<string, string> = {

@@ -1,5 +1,5 @@
 import 'server-only';
-import type { DrillAssignmentRow, DrillRow, TargetRow } from 'knex/types/tables';
+import type { DrillAssignmentRow, DrillRow, TargetRow } from '@/lib/db/tables';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { ForbiddenError, NotFoundError } from '@/lib/http';

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EVENT_NAMES, PHASE_NAMES } from '@/lib/signal/types';
+import { EVENT_NAMES, PHASE_NAMES, PHASES, type EventName, type PhaseName } from '@/lib/signal/types';
 
 // The swing API's contract: responses of GET/PATCH /api/swings/:id and the annotation routes (lib/db/swings.ts
 // returns these types, the client parses them through lib/fetcher.ts), and the request bodies of PATCH
@@ -7,6 +7,15 @@ import { EVENT_NAMES, PHASE_NAMES } from '@/lib/signal/types';
 
 export const eventNames = EVENT_NAMES;
 export const phaseNames = PHASE_NAMES;
+
+const capitalised = (s: string) => s[0].toUpperCase() + s.slice(1);
+/** The events' names on screen: Address, Top, Transition, Impact, Finish. */
+export const eventLabels = Object.fromEntries(EVENT_NAMES.map((e) => [e, capitalised(e)])) as Record<EventName, string>;
+/** Each phase's name on screen and the events that bound it (lib/signal/types.ts PHASES), e.g. "address → top". */
+export const phaseLabels = Object.fromEntries(PHASES.map((p) => [p.name, { name: capitalised(p.name), span: `${p.from} → ${p.to}` }])) as Record<
+  PhaseName,
+  { name: string; span: string }
+>;
 
 const num = z.number().nullable();
 

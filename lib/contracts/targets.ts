@@ -26,7 +26,7 @@ export const measureLabels: Record<Measure, string> = {
   trailHeelPct: 'Trail heel %',
   copSide: 'COP side (% of half stance)',
 };
-export const eventLabels: Record<EventName, string> = Object.fromEntries(EVENT_NAMES.map((e) => [e, e[0].toUpperCase() + e.slice(1)])) as Record<EventName, string>;
+export { eventLabels } from './swings';
 
 // --- request bodies ---
 // POST /api/targets and PATCH /api/targets/:id (and the target form). Percentages 0-100; copSide -150..150 (% of half
@@ -106,6 +106,7 @@ export const scoreResponseSchema = z.object({
       summary: scoreSummarySchema,
     })
     .nullable(),
-  band: bandFitSchema.extend({ id: z.number(), name: z.string(), byCurve: z.record(z.string(), bandFitSchema) }).nullable(),
+  /** the lead % curve's fit, and each curve's with the number of registered points compared */
+  band: bandFitSchema.extend({ id: z.number(), name: z.string(), byCurve: z.record(z.string(), bandFitSchema.extend({ points: z.number() })) }).nullable(),
 });
 export type ScoreResponse = z.infer<typeof scoreResponseSchema>;

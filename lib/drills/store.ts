@@ -2,7 +2,7 @@ import 'server-only';
 import { ZodError } from 'zod';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import type { DrillAssignmentRow, DrillRow } from 'knex/types/tables';
+import type { DrillAssignmentRow, DrillRow } from '@/lib/db/tables';
 import { jsonColumnOf, toIsoDate, toIsoTime } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { requireAssignment, requireAthlete, requireDrillToWrite, requireSession } from '@/lib/auth/access';

@@ -5,7 +5,7 @@ import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
 import { requireAthlete, requireTargetToWrite } from '@/lib/auth/access';
 import type { TargetInput } from '@/lib/contracts/targets';
 import type { ClubGroup, Target, TargetCheck } from './types';
-import type { TargetRow } from 'knex/types/tables';
+import type { TargetRow } from '@/lib/db/tables';
 import { jsonColumnOf } from '@/lib/db/values';
 
 // Who sees which targets: a coach sees the academy defaults, their own, and any target for an athlete on their

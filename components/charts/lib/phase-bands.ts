@@ -8,14 +8,8 @@ export interface PhaseSpan {
   endS: number;
 }
 
-const PHASE_WORDS: Record<PhaseName, string> = {
-  backswing: 'backswing',
-  transition: 'transition',
-  downswing: 'downswing',
-  'follow-through': 'follow-through',
-};
-
-export const phaseLabel = (name: PhaseName) => PHASE_WORDS[name];
+/** A phase's name on a chart: the name itself (lib/signal/types.ts PHASE_NAMES), in lower case. */
+export const phaseLabel = (name: PhaseName): string => name;
 
 /** One span per phase with a positive duration, in swing order. */
 export function phaseSpans(events: SwingEvents): PhaseSpan[] {

@@ -79,6 +79,9 @@ beforeAll(async () => {
   const drill = drillsResponseSchema.parse((await coachApi.json('/api/drills')).body).drills[0];
   const assigned = await coachApi.json(`/api/athletes/${athlete.id}/drill-assignments`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ drillId: drill.id, dueDate: '2030-01-15' }) });
   expect(assigned.status).toBe(201);
+  // a club on the viewed swing, so a target applies and the score panel shows pass and miss
+  const labelled = await coachApi.json(`/api/swings/${swingIds[3]}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ labels: { club: 'iron-7' } }) });
+  expect(labelled.status).toBe(200);
   fixture = { athleteId: athlete.id, sessionId: session.id, swingIds, bandId: band.id };
 });
 
@@ -101,6 +104,21 @@ describe('accessibility: WCAG 2 A/AA with axe-core, zero violations', () => {
     expect(missing, 'add these routes to tests/e2e/support/a11y-pages.ts').toEqual([]);
     expect(new Set(A11Y_CHECKS.map((c) => c.name)).size).toBe(A11Y_CHECKS.length);
     for (const role of ['coach', 'student', 'admin', 'researcher', 'signed-out'] as const) expect(A11Y_CHECKS.some((c) => c.as === role)).toBe(true);
+  });
+
+  it('pass and miss are said in words beside their colour (WCAG 2.1 SC 1.4.1)', async () => {
+    const page = await pageFor('coach');
+    current = page;
+    await page.goto(`${baseUrl}/swings/${fixture.swingIds[3]}`);
+    const rows = page.locator('[data-testid="score-panel"] [data-check][data-pass]');
+    await rows.first().waitFor({ timeout: 30_000 });
+    const results = await rows.evaluateAll((trs) => trs.map((tr) => ({ pass: tr.getAttribute('data-pass'), text: tr.lastElementChild?.textContent?.trim() ?? '' })));
+    expect(results.length).toBeGreaterThan(0);
+    for (const r of results) {
+      if (r.pass === 'true') expect(r.text).toMatch(/^✓ pass$/);
+      else if (r.pass === 'false') expect(r.text).toMatch(/^✗ (miss by .+ (high|low)|outside range)$/);
+      else expect(r.text).toMatch(/not measured|—/);
+    }
   });
 
   for (const check of A11Y_CHECKS) {

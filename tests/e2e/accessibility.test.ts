@@ -121,6 +121,29 @@ describe('accessibility: WCAG 2 A/AA with axe-core, zero violations', () => {
     }
   });
 
+  it('prefers-reduced-motion: nothing on the viewer animates or transitions', async () => {
+    const page = await pageFor('coach');
+    current = page;
+    // every element's longest transition or animation, s (computed durations are lists like "0.15s, 0s")
+    const longest = () =>
+      page.evaluate(() => {
+        const secs = (v: string) => Math.max(0, ...v.split(',').map((d) => (d.trim().endsWith('ms') ? parseFloat(d) / 1000 : parseFloat(d)) || 0));
+        let max = 0;
+        for (const el of document.querySelectorAll('*')) {
+          const cs = getComputedStyle(el);
+          max = Math.max(max, secs(cs.transitionDuration), cs.animationName === 'none' ? 0 : secs(cs.animationDuration));
+        }
+        return max;
+      });
+    await page.goto(`${baseUrl}/swings/${fixture.swingIds[3]}`);
+    await page.locator('[data-testid="swing-workbench"] [data-swing-viewer]').waitFor({ timeout: 30_000 });
+    await page.emulateMedia({ reducedMotion: 'no-preference' });
+    expect(await longest()).toBeGreaterThan(0.05); // the page does use transitions (buttons fade their colours)
+    await page.emulateMedia({ reducedMotion: 'reduce' });
+    expect(await longest()).toBeLessThanOrEqual(0.001);
+    await page.emulateMedia({ reducedMotion: null });
+  });
+
   for (const check of A11Y_CHECKS) {
     it(`${check.as}: ${check.name}`, async () => {
       const page = await pageFor(check.as);

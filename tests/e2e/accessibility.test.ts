@@ -15,8 +15,8 @@ import { axeViolations, describeViolations } from './support/axe';
 import { launchBrowser, screenshotFailure, screenshotPath, type Browser } from './support/browser';
 
 // WCAG 2.0/2.1 level A and AA (axe-core's wcag2a, wcag2aa, wcag21a, wcag21aa rules) on every page of every role
-// and on the states reached by acting, from the one list in tests/e2e/support/a11y-pages.ts. Zero violations
-// allowed. The swings come from an invented lesson of the project's generator uploaded through POST /api/recordings;
+// and on the states reached by acting, from the one list in tests/e2e/support/a11y-pages.ts, at 1280x800 and again
+// at 1024x768. Zero violations allowed. The swings come from an invented lesson of the project's generator uploaded through POST /api/recordings;
 // a band is built from three of them and a demo drill is assigned, so the pages show real content, not empty states.
 
 const athlete = DEMO_ATHLETES.find((a) => a.id === 1)!; // coach@'s student, account student@ (db/demo/scenario.ts)
@@ -161,9 +161,14 @@ describe('accessibility: WCAG 2 A/AA with axe-core, zero violations', () => {
       expect(violations, describeViolations(violations)).toEqual([]);
       // for a look at the colours and layout at the two common laptop sizes (artifacts/, not compared)
       await page.screenshot({ path: screenshotPath(`${slug}-1280x800`), fullPage: true });
+      // the narrower window again, where tables may start to scroll and charts redraw narrower
       await page.setViewportSize({ width: 1024, height: 768 });
+      await page.waitForLoadState('networkidle');
+      const narrow = await axeViolations(page);
+      if (narrow.length) writeFileSync(screenshotPath(`${slug}-1024x768`).replace(/\.png$/, '.json'), JSON.stringify(narrow, null, 2));
       await page.screenshot({ path: screenshotPath(`${slug}-1024x768`), fullPage: true });
       await page.setViewportSize({ width: 1280, height: 800 });
+      expect(narrow, `at 1024x768:\n${describeViolations(narrow)}`).toEqual([]);
     });
   }
 });

@@ -73,6 +73,10 @@ beforeAll(async () => {
   expect(done.status).toBe('ready');
   const swingIds = (done.swings as { id: number; stale: boolean }[]).filter((s) => !s.stale).map((s) => s.id);
   expect(swingIds.length).toBeGreaterThanOrEqual(4);
+  // a file that fails processing, so the session page shows a failed recording with its error too
+  const bad = await upload(coachApi, { athleteId: athlete.id, sessionId: session.id, handedness: athlete.handedness, stanceWidthMm: athlete.stanceWidthMm }, [{ name: 'a11y-garbled.csv', content: csv.replace(/\n([^\n]*)\n/, '\n$1,extra-cell\n') }]);
+  expect(bad.status).toBe(202);
+  expect((await settled(coachApi, bad.body.recordings[0].id)).status).toBe('failed');
   const built = await coachApi.json('/api/bands', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Accessibility check band', swingIds: swingIds.slice(0, 3) }) });
   expect(built.status).toBe(201);
   const band = bandsResponseSchema.parse((await coachApi.json('/api/bands')).body).bands.find((b) => b.name === 'Accessibility check band')!;

@@ -70,6 +70,19 @@ export const A11Y_CHECKS: A11yCheck[] = [
   { name: 'coach athlete compare', route: '/athletes/[id]/compare', as: 'coach', path: (f) => `/athletes/${f.athleteId}/compare` },
   { name: 'coach athlete progress', route: '/athletes/[id]/progress', as: 'coach', path: (f) => `/athletes/${f.athleteId}/progress` },
   { name: 'coach upload', route: '/upload', as: 'coach', path: () => '/upload' },
+  {
+    name: 'coach upload, a file chosen and an option refused on its field',
+    route: '/upload',
+    as: 'coach',
+    path: () => '/upload',
+    act: async (page) => {
+      // nothing is sent: the form refuses the option first (tests/e2e/upload.test.ts checks the message)
+      await page.getByTestId('file-input').setInputFiles({ name: 'a11y-choice.csv', mimeType: 'text/csv', buffer: Buffer.from('time_s,L1\n0,1\n') });
+      await page.getByLabel('Filter cutoff (Hz)').fill('80');
+      await page.getByRole('button', { name: 'Upload 1 file' }).click();
+      await page.locator('[data-field-error="cutoffHz"]').waitFor();
+    },
+  },
   { name: 'coach targets', route: '/targets', as: 'coach', path: () => '/targets', ready: (page) => page.getByTestId('target-list').waitFor() },
   {
     name: 'coach targets, form with errors',
@@ -98,6 +111,18 @@ export const A11Y_CHECKS: A11yCheck[] = [
     },
   },
   { name: 'coach drills', route: '/drills', as: 'coach', path: () => '/drills', ready: (page) => page.getByTestId('drill-library').waitFor() },
+  {
+    name: 'coach drills, form with errors',
+    route: '/drills',
+    as: 'coach',
+    path: () => '/drills',
+    ready: (page) => page.getByTestId('drill-library').waitFor(),
+    act: async (page) => {
+      await page.getByTestId('drill-form').getByRole('button', { name: 'Add drill' }).click();
+      await page.getByTestId('drill-form').getByRole('alert').first().waitFor();
+    },
+  },
+  // the session holds a processed recording and a failed one (with its error note)
   { name: 'coach session', route: '/sessions/[id]', as: 'coach', path: (f) => `/sessions/${f.sessionId}` },
   { name: 'coach lesson summary', route: '/sessions/[id]/summary', as: 'coach', path: (f) => `/sessions/${f.sessionId}/summary?swings=${f.swingIds.slice(0, 2).join(',')}` },
   { name: 'coach swing viewer', route: '/swings/[id]', as: 'coach', path: (f) => `/swings/${f.swingIds[3]}`, ready: viewer },

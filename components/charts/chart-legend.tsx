@@ -12,7 +12,7 @@ function Swatch({ tone, overlay }: { tone: LegendItem['tone']; overlay?: boolean
   if (tone === 'band') {
     return (
       <svg width="22" height="10" aria-hidden="true" className="shrink-0">
-        <rect x="0" y="1" width="22" height="8" fill={CHART_COLOURS.band} fillOpacity={0.3} stroke={CHART_COLOURS.band} strokeWidth={0.75} />
+        <rect x="0" y="1" width="22" height="8" fill={CHART_COLOURS.band} fillOpacity={0.3} stroke={CHART_COLOURS.bandEdge} strokeWidth={0.75} />
       </svg>
     );
   }

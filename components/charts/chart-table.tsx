@@ -56,7 +56,14 @@ function ChartTableInner(p: ChartTableProps) {
       >
         {shown ? 'Hide table' : 'Show table'}
       </button>
-      <div id={id} className={shown ? 'mt-1 max-h-48 overflow-auto rounded border border-surface-line' : 'sr-only'}>
+      {/* open, the table scrolls: a named region in the tab order, so it can be scrolled from the keyboard (WCAG 2.1.1) */}
+      <div
+        id={id}
+        className={shown ? 'mt-1 max-h-48 overflow-auto rounded border border-surface-line' : 'sr-only'}
+        tabIndex={shown ? 0 : undefined}
+        role={shown ? 'region' : undefined}
+        aria-label={shown ? p.caption : undefined}
+      >
         <table className="w-auto min-w-[16rem] border-collapse text-right text-[11px] tabular-nums text-ink" data-chart-table>
           <caption className="sr-only">{p.caption}</caption>
           <thead className="sticky top-0 bg-surface-sunken text-ink-muted">

@@ -6,7 +6,7 @@ import { formatSeconds } from './format';
 import { minMaxDownsample, sliceRange, visibleRange } from './lib/downsample';
 import { labelRows, textWidth } from './lib/label-layout';
 import { valueAt } from './lib/nearest';
-import { CHART_COLOURS, OVERLAY_STYLE, PHASE_FILLS, TONE_STYLE } from './lib/palette';
+import { BAND_FILL_OPACITY, CHART_COLOURS, OVERLAY_STYLE, PHASE_FILLS, TONE_STYLE } from './lib/palette';
 import { bandPath, linePath } from './lib/paths';
 import { phaseLabel, phaseSpans } from './lib/phase-bands';
 import type { NumArray } from './lib/types';
@@ -22,6 +22,8 @@ function displayPoints(time: NumArray, values: NumArray, domain: [number, number
   const v = sliceRange(values, i0, i1);
   return t.length > pixels * 2 ? minMaxDownsample(t, v, Math.max(1, Math.floor(pixels))) : { time: t, values: v };
 }
+
+const eventWord = (name: string) => name.charAt(0).toUpperCase() + name.slice(1);
 
 function ChartLayersInner(p: LayerProps) {
   const { box, w, h, x, y } = chartGeometry(p);
@@ -45,14 +47,16 @@ function ChartLayersInner(p: LayerProps) {
   const labelText = (m: (typeof markers)[number]) => (m.corrected ? `${m.name}*` : m.name);
   const rows = p.showEventLabels ? labelRows(markers.map((m) => ({ x: m.px, width: textWidth(labelText(m), FONT_PX) })), 4, 2) : [];
 
+  // Everything but the markers is drawing only: hidden from assistive technology, whose readers get the title, the
+  // description, the table fallback and (in the viewer) the markers as sliders.
   return (
     <>
-      <defs>
+      <defs aria-hidden="true">
         <clipPath id={clipId}>
           <rect x={0} y={-2} width={w} height={h + 4} />
         </clipPath>
       </defs>
-      <g data-layer="phases">
+      <g data-layer="phases" aria-hidden="true">
         {spans.map((s, k) => {
           const x0 = clampX(x(s.startS));
           const x1 = clampX(x(s.endS));
@@ -70,13 +74,13 @@ function ChartLayersInner(p: LayerProps) {
           );
         })}
       </g>
-      <g data-layer="grid" stroke={CHART_COLOURS.line} strokeWidth={1}>
+      <g data-layer="grid" aria-hidden="true" stroke={CHART_COLOURS.line} strokeWidth={1}>
         {yTicks.map((v) => (
           <line key={`y${v}`} x1={0} x2={w} y1={y(v)} y2={y(v)} strokeOpacity={0.9} />
         ))}
         <rect x={0} y={0} width={w} height={h} fill="none" />
       </g>
-      <g data-layer="y-axis" fill={CHART_COLOURS.inkMuted}>
+      <g data-layer="y-axis" aria-hidden="true" fill={CHART_COLOURS.inkMuted}>
         {yTicks.map((v) => (
           <text key={`t${v}`} x={-6} y={y(v)} dy="0.32em" textAnchor="end">
             {v}
@@ -84,7 +88,7 @@ function ChartLayersInner(p: LayerProps) {
         ))}
       </g>
       {p.showTimeAxis && (
-        <g data-layer="time-axis" fill={CHART_COLOURS.inkMuted}>
+        <g data-layer="time-axis" aria-hidden="true" fill={CHART_COLOURS.inkMuted}>
           {xTicks.map((k) => (
             <text key={`x${k.label}`} x={x(k.t)} y={h + 14} textAnchor="middle">
               {k.label}
@@ -95,12 +99,15 @@ function ChartLayersInner(p: LayerProps) {
           </text>
         </g>
       )}
-      <g clipPath={`url(#${clipId})`}>
+      <g clipPath={`url(#${clipId})`} aria-hidden="true">
         {p.band && (
           <g data-layer="band">
-            <path d={bandPath(p.band.time, p.band.lower, p.band.upper, x, y)} fill={CHART_COLOURS.band} fillOpacity={0.25} stroke="none" />
+            <path d={bandPath(p.band.time, p.band.lower, p.band.upper, x, y)} fill={CHART_COLOURS.band} fillOpacity={BAND_FILL_OPACITY} stroke="none" />
+            {/* the sky-blue fill alone is too faint to find the band's limits (WCAG 2.1 SC 1.4.11): thin edges and a dashed mean in the darker band hue */}
+            <path d={linePath(p.band.time, p.band.lower, x, y)} fill="none" stroke={CHART_COLOURS.bandEdge} strokeWidth={0.75} data-band-edge="lower" />
+            <path d={linePath(p.band.time, p.band.upper, x, y)} fill="none" stroke={CHART_COLOURS.bandEdge} strokeWidth={0.75} data-band-edge="upper" />
             {p.band.mean && (
-              <path d={linePath(p.band.time, p.band.mean, x, y)} fill="none" stroke={CHART_COLOURS.band} strokeWidth={1} strokeOpacity={0.9} />
+              <path d={linePath(p.band.time, p.band.mean, x, y)} fill="none" stroke={CHART_COLOURS.bandEdge} strokeWidth={1} strokeDasharray="4 3" />
             )}
           </g>
         )}
@@ -133,7 +140,7 @@ function ChartLayersInner(p: LayerProps) {
             })}
         </g>
       </g>
-      <g data-layer="events">
+      <g data-layer="events" aria-hidden={p.focusableMarkers ? undefined : true}>
         {markers.map((m, k) => {
           const first = p.lines.find((l) => !l.overlay);
           const emph = first && p.emphasisEvents?.includes(m.name) ? first : null;
@@ -147,7 +154,7 @@ function ChartLayersInner(p: LayerProps) {
               data-corrected={m.corrected ? 'true' : undefined}
               role={p.focusableMarkers ? 'slider' : undefined}
               tabIndex={p.focusableMarkers ? 0 : undefined}
-              aria-label={p.focusableMarkers ? `${m.name}${m.corrected ? ' (corrected)' : ''}` : undefined}
+              aria-label={p.focusableMarkers ? `${eventWord(m.name)} marker${m.corrected ? ' (moved by hand)' : ''}` : undefined}
               aria-valuetext={p.focusableMarkers ? `${formatSeconds(m.t - zero)} s` : undefined}
               aria-valuenow={p.focusableMarkers ? Number((m.t - zero).toFixed(3)) : undefined}
               aria-valuemin={p.focusableMarkers ? Number((p.domain[0] - zero).toFixed(3)) : undefined}

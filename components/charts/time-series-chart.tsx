@@ -69,7 +69,9 @@ export function TimeSeriesChart(p: TimeSeriesChartProps) {
         width="100%"
         viewBox={`0 0 ${p.width} ${p.height}`}
         preserveAspectRatio="xMidYMid meet"
-        role="img"
+        // with focusable markers the svg is a group holding named sliders (an img role would hide them: its
+        // children are presentational); otherwise one image with the title and the description
+        role={p.focusableMarkers ? 'group' : 'img'}
         aria-labelledby={`${p.id}-title`}
         aria-describedby={p.description ? `${p.id}-desc` : undefined}
         className={`block select-none ${interactive ? 'touch-none' : ''}`}
@@ -84,7 +86,7 @@ export function TimeSeriesChart(p: TimeSeriesChartProps) {
         <g transform={`translate(${box.margin.left},${box.margin.top})`}>
           <ChartLayers {...layerProps} />
           {cursorPx != null && cursorPx >= 0 && cursorPx <= w && (
-            <line data-cursor x1={cursorPx} x2={cursorPx} y1={0} y2={h} stroke={CHART_COLOURS.ink} strokeWidth={1.25} pointerEvents="none" />
+            <line data-cursor aria-hidden="true" x1={cursorPx} x2={cursorPx} y1={0} y2={h} stroke={CHART_COLOURS.ink} strokeWidth={1.25} pointerEvents="none" />
           )}
         </g>
       </svg>

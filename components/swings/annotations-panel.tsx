@@ -114,7 +114,16 @@ export function AnnotationForm({ swingId, cursorTime, timeZero, onChanged }: Pic
       <label htmlFor="annotation-body" className="block text-sm font-medium text-ink">
         New note
       </label>
-      <textarea id="annotation-body" rows={3} maxLength={2000} value={body} onChange={(e) => setBody(e.target.value)} className={inputClass} />
+      <textarea
+        id="annotation-body"
+        rows={3}
+        maxLength={2000}
+        value={body}
+        onChange={(e) => setBody(e.target.value)}
+        className={inputClass}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? 'annotation-error' : undefined}
+      />
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
         <label className="inline-flex items-center gap-1.5">
           <input type="radio" name="annotation-pin" checked={pin === 'time'} onChange={() => setPin('time')} />
@@ -140,7 +149,7 @@ export function AnnotationForm({ swingId, cursorTime, timeZero, onChanged }: Pic
         </label>
       </div>
       {error && (
-        <p role="alert" className="text-sm text-danger" data-testid="annotation-error">
+        <p id="annotation-error" role="alert" className="text-sm text-danger" data-testid="annotation-error">
           {error}
         </p>
       )}

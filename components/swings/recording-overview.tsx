@@ -61,7 +61,7 @@ export function RecordingOverview({ overview, siblings, window: win, onJump }: R
         </span>
       </div>
       <svg viewBox={`0 0 ${W} ${H}`} preserveAspectRatio="none" className="block h-10 w-full cursor-pointer" onClick={onClick} role="img" aria-label={`Lead % across the recording; this swing from ${win.startS.toFixed(2)} to ${win.endS.toFixed(2)} s`}>
-        <rect x={x(win.startS)} y={0} width={Math.max(2, x(win.endS) - x(win.startS))} height={H} fill={CHART_COLOURS.bandSoft} stroke={CHART_COLOURS.band} vectorEffect="non-scaling-stroke" />
+        <rect x={x(win.startS)} y={0} width={Math.max(2, x(win.endS) - x(win.startS))} height={H} fill={CHART_COLOURS.bandSoft} stroke={CHART_COLOURS.bandEdge} vectorEffect="non-scaling-stroke" />
         <line x1={0} x2={W} y1={y(50)} y2={y(50)} stroke={CHART_COLOURS.line} vectorEffect="non-scaling-stroke" />
         <path d={path} fill="none" stroke={TONE_STYLE.lead.stroke} strokeWidth={1.25} vectorEffect="non-scaling-stroke" />
       </svg>

@@ -4,8 +4,8 @@ type Tone = 'neutral' | 'lead' | 'trail' | 'band' | 'notice' | 'ok' | 'danger';
 
 const tones: Record<Tone, string> = {
   neutral: 'bg-surface-sunken text-ink-muted border-surface-line',
-  lead: 'bg-foot-lead/10 text-foot-lead border-foot-lead/30',
-  trail: 'bg-foot-trail/10 text-foot-trail border-foot-trail/30',
+  lead: 'bg-foot-lead/10 text-foot-lead-ink border-foot-lead/30',
+  trail: 'bg-foot-trail/10 text-foot-trail-ink border-foot-trail/30',
   band: 'bg-band-soft text-ink border-band/40',
   notice: 'bg-notice-soft text-notice border-notice-line',
   ok: 'bg-ok-soft text-ok border-ok/30',

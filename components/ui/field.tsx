@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 
 export const inputClass =
-  'block w-full rounded-md border border-surface-line bg-surface px-3 py-2 text-sm text-ink placeholder:text-ink-faint focus:border-accent focus:outline-none aria-[invalid=true]:border-danger';
+  'block w-full rounded-md border border-surface-line bg-surface px-3 py-2 text-sm text-ink placeholder:text-ink-faint focus:border-accent aria-[invalid=true]:border-danger';
 
 /** Label, control, hint and error for one form field; the error is linked to the control for screen readers. */
 export function Field({

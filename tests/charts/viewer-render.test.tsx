@@ -34,6 +34,18 @@ describe('SwingTraceViewer (static render of a synthetic swing)', () => {
     expect(html).toContain('data-scrubber');
   });
 
+  it('names the focusable markers as sliders in a group, never inside an img (axe nested-interactive, WCAG 4.1.2)', () => {
+    const html = renderToStaticMarkup(<SwingTraceViewer {...base} onEventsChange={() => {}} />);
+    const svgs = html.match(/<svg[^>]*>[\s\S]*?<\/svg>/g) ?? [];
+    const withFocus = svgs.filter((svg) => svg.includes('tabindex="0"'));
+    expect(withFocus).toHaveLength(1); // the lead % chart only, so the tab order stays short
+    expect(withFocus[0]).toMatch(/^<svg[^>]*role="group"/);
+    const sliders = withFocus[0].match(/<g[^>]*role="slider"[^>]*>/g) ?? [];
+    expect(sliders).toHaveLength(5);
+    expect(sliders.map((g) => /aria-label="([^"]+)"/.exec(g)?.[1])).toEqual(['Address marker', 'Top marker', 'Transition marker', 'Impact marker', 'Finish marker']);
+    for (const svg of svgs) if (/^<svg[^>]*role="img"/.test(svg)) expect(svg).not.toContain('tabindex');
+  });
+
   it('is read-only without onEventsChange: no drag handles, no undo', () => {
     const html = renderToStaticMarkup(<SwingTraceViewer {...base} />);
     expect(html).not.toContain('data-drag-event');
@@ -57,6 +69,7 @@ describe('SwingTraceViewer (static render of a synthetic swing)', () => {
     expect(count(html, 'data-line="overlay-')).toBe(4); // lead %, both heels, COP speed
     expect(html).toContain('stroke-dasharray="1.5 3.5"');
     expect(html).toContain('data-layer="band"');
+    expect(count(html, 'data-band-edge=')).toBe(2); // lower and upper edge in the darker band hue (SC 1.4.11)
     expect(html).toContain('data-overlay-path');
   });
 });

@@ -1,19 +1,21 @@
-// Chart colours, from the tokens in tailwind.config.ts (Okabe-Ito for the feet and the band). SVG attributes take
-// plain values, so they are repeated here once; nothing else in the charts names a colour.
+// Chart colours, taken from the tokens in tailwind.config.ts (Okabe-Ito for the feet and the band). SVG attributes
+// take plain values, so the charts read them here; nothing else in the charts names a colour.
+import { palette } from '@/tailwind.config';
 import type { LineTone } from './types';
 
 export const CHART_COLOURS = {
-  lead: '#0072B2',
-  trail: '#D55E00',
-  band: '#56B4E9',
-  bandSoft: '#E3F2FB',
-  ink: '#1D2430',
-  inkMuted: '#566070',
-  inkFaint: '#8A93A1',
-  surface: '#FFFFFF',
-  sunken: '#F4F5F7',
-  line: '#DDE1E6',
-  accent: '#0072B2',
+  lead: palette.foot.lead,
+  trail: palette.foot.trail,
+  band: palette.band.DEFAULT,
+  bandSoft: palette.band.soft,
+  bandEdge: palette.band.edge,
+  ink: palette.ink.DEFAULT,
+  inkMuted: palette.ink.muted,
+  inkFaint: palette.ink.faint,
+  surface: palette.surface.DEFAULT,
+  sunken: palette.surface.sunken,
+  line: palette.surface.line,
+  accent: palette.accent.DEFAULT,
 } as const;
 
 /** Colour, dash pattern (SVG stroke-dasharray) and width for each tone. Lead solid, trail dashed. */
@@ -23,8 +25,14 @@ export const TONE_STYLE: Record<LineTone, { stroke: string; dash: string | undef
   neutral: { stroke: CHART_COLOURS.ink, dash: undefined, width: 1.75 },
 };
 
-/** The compared swing: dotted, thinner and faded so the swing under study stays in front. */
-export const OVERLAY_STYLE = { dash: '1.5 3.5', width: 1.5, opacity: 0.75 } as const;
+/**
+ * The compared swing: dotted and thinner so the swing under study stays in front. Not faded: at 75 % opacity the
+ * vermillion fell below the 3:1 that WCAG 2.1 SC 1.4.11 asks of a line that carries meaning.
+ */
+export const OVERLAY_STYLE = { dash: '1.5 3.5', width: 1.5, opacity: 1 } as const;
+
+/** Opacity of the reference band's sky-blue area; its edges are drawn in CHART_COLOURS.bandEdge. */
+export const BAND_FILL_OPACITY = 0.2;
 
 /** Alternating neutral shades for the phases (their names are written in the chart too). */
-export const PHASE_FILLS = ['#EEF0F3', '#FFFFFF'] as const;
+export const PHASE_FILLS = [palette.surface.phase, palette.surface.DEFAULT] as const;

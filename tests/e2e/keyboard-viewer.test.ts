@@ -4,7 +4,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
 import { DEMO_ATHLETES, DEMO_SESSIONS } from '@/db/demo/scenario';
 import { generateSession } from '@/lib/signal/synthetic';
-import { swingViewResponseSchema, type SwingView } from '@/components/swings/swing-schemas';
+import { swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from '../http/support/env';
 import { signedIn, type HttpSession } from '../http/support/http-session';
 import { serverDb, settled, upload } from '../http/support/recordings-http';

@@ -230,9 +230,13 @@ describe('labels and not-a-swing', () => {
 describe('annotations', () => {
   it('keeps coach-only notes from the student, shows shared ones, and checks the pin and the body', async () => {
     const path = `/api/swings/${swingIds[0]}/annotations`;
-    const shared = await send('coach', 'POST', path, { body: 'Hold the trail heel a beat longer at the top.', timeS: 3.21, visibility: 'shared' });
+    // a time pin lies inside the swing's window (issue 11): two moments of this swing, to the millisecond
+    const window = await db('swings').where({ id: swingIds[0] }).first('start_s', 'end_s');
+    const at = (f: number) => Math.round((Number(window.start_s) + f * (Number(window.end_s) - Number(window.start_s))) * 1000) / 1000;
+    const [t1, t2] = [at(0.3), at(0.5)];
+    const shared = await send('coach', 'POST', path, { body: 'Hold the trail heel a beat longer at the top.', timeS: t1, visibility: 'shared' });
     expect(shared.status).toBe(201);
-    expect((shared.body as { annotation: unknown }).annotation).toMatchObject({ authorName: 'Maren Solberg', authorRole: 'coach', timeS: 3.21, phase: null, visibility: 'shared' });
+    expect((shared.body as { annotation: unknown }).annotation).toMatchObject({ authorName: 'Maren Solberg', authorRole: 'coach', timeS: t1, phase: null, visibility: 'shared' });
     const coachOnly = await send('coach', 'POST', path, { body: 'Ask about the left knee next week.', phase: 'downswing', visibility: 'coach' });
     expect(coachOnly.status).toBe(201);
     const bodies = (s: SwingView) => s.annotations.map((a) => a.body);
@@ -255,9 +259,9 @@ describe('annotations', () => {
 
     // sharing the coach-only note, re-pinning it to a time clears the phase
     const id = (coachOnly.body as { annotation: { id: number } }).annotation.id;
-    const patched = await send('coach', 'PATCH', `${path}/${id}`, { visibility: 'shared', timeS: 3.5 });
+    const patched = await send('coach', 'PATCH', `${path}/${id}`, { visibility: 'shared', timeS: t2 });
     expect(patched.status).toBe(200);
-    expect((patched.body as { annotation: unknown }).annotation).toMatchObject({ visibility: 'shared', timeS: 3.5, phase: null });
+    expect((patched.body as { annotation: unknown }).annotation).toMatchObject({ visibility: 'shared', timeS: t2, phase: null });
     expect(bodies(await getSwing('student', swingIds[0]))).toHaveLength(2);
     expect((await sessions.get('coach')!.fetch(`${path}/${id}`, { method: 'DELETE' })).status).toBe(204);
     expect((await sessions.get('coach')!.fetch(`${path}/${id}`, { method: 'DELETE' })).status).toBe(404);

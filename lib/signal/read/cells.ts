@@ -72,6 +72,12 @@ export function quote(text: string): string {
   return `"${t.slice(0, QUOTE_MAX_CHARS)}…" (${t.length} characters)`;
 }
 
+/** Like quote, without the quotation marks (for a number shown as a number). */
+export function clip(text: string): string {
+  const t = text.trim();
+  return t.length <= QUOTE_MAX_CHARS ? t : `${t.slice(0, QUOTE_MAX_CHARS)}… (${t.length} characters)`;
+}
+
 /**
  * Highest nominal rate accepted in `sample_rate_hz`. Pressure insoles record at 50-500 Hz (the format's scope); 10 kHz
  * leaves room for any lab system (common practice) while refusing typos such as 1e12.

@@ -5,7 +5,7 @@
 import Papa from 'papaparse';
 import { SignalInputError } from '../errors';
 import type { ImportProfile, RawRecording, Units } from '../types';
-import { cellNumber, checkedMetadataValue, detectDelimiter, metadataEntry, quote } from './cells';
+import { cellNumber, checkedMetadataValue, clip, detectDelimiter, metadataEntry, quote } from './cells';
 import { planFromHeader, planFromProfile, type ColumnPlan } from './columns';
 import { Growable } from './growable';
 
@@ -132,7 +132,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
     if (t !== t) throw new SignalInputError('missing-time', 'the time cell is empty', { line, column: p.time + 1 });
     const ts = t * p.timeScale;
     if (!(ts > prevTime)) {
-      throw new SignalInputError('time-not-increasing', `time ${quote(fields[p.time])} is not after the previous row's`, {
+      throw new SignalInputError('time-not-increasing', `time ${clip(fields[p.time])} is not after the previous row's`, {
         line,
         column: p.time + 1,
       });

@@ -1,0 +1,55 @@
+// Address: the start of the takeaway, i.e. the first sample of the sustained trail-ward COP X move that leads to the
+// top. Back from the top: past a pause at the top (|vx| below half the quiet threshold, at most topPauseMaxS), through
+// the move while vx is trail-ward faster than half the quiet threshold (bridging short noisy dips), then on to where vx stops being trail-ward
+// at all (at most takeawayOnsetMaxS further: the slow first part of the move). A forward press ends exactly there,
+// because its velocity is lead-ward.
+// The still address: a still moment of at least quietMinS (quietFraction of its samples below the quiet threshold)
+// ending within preShotS before the takeaway: waggles and presses in that last second belong to the set-up.
+import type { DerivedSeries } from '../types';
+import type { DetectionParams } from './params';
+
+/** The takeaway sample, or -1 when no trail-ward move precedes the top within backswingMaxS. */
+export function findTakeaway(s: DerivedSeries, top: number, quietMmS: number, p: DetectionParams): number {
+  const vx = s.copVx;
+  const fs = s.sampleRateHz;
+  const lo = Math.max(0, top - Math.round(p.backswingMaxS * fs));
+  const theta = quietMmS / 2;
+  let i = top;
+  const pauseLo = Math.max(lo, top - Math.round(p.topPauseMaxS * fs));
+  while (i > pauseLo && !(vx[i] < -theta)) i--;
+  if (!(vx[i] < -theta)) return -1;
+  // through the move; dips of up to takeawayGapS (noise on a slow part) are bridged, a lead-ward sample ends it
+  const gapN = Math.max(1, Math.round(p.takeawayGapS * fs));
+  for (let j = i - 1, quiet = 0; j >= lo; j--) {
+    if (vx[j] < -theta) {
+      i = j;
+      quiet = 0;
+    } else if (vx[j] > theta || ++quiet > gapN) break;
+  }
+  if (i - 1 < lo) return -1; // still moving at the edge of the search: no start found
+  const onsetLo = Math.max(lo, i - Math.round(p.takeawayOnsetMaxS * fs));
+  while (i - 1 >= onsetLo && vx[i - 1] < 0) i--;
+  return i;
+}
+
+/** The latest still moment [from, to] ending within preShotS before the takeaway, or null. */
+export function findStillAddress(s: DerivedSeries, takeaway: number, quietMmS: number, p: DetectionParams): { from: number; to: number } | null {
+  const fs = s.sampleRateHz;
+  const q = Math.max(2, Math.round(p.quietMinS * fs));
+  const need = Math.ceil(p.quietFraction * q);
+  const lastEnd = takeaway;
+  const firstEnd = takeaway - Math.round(p.preShotS * fs);
+  if (firstEnd - q + 1 < 0) return null;
+  const speed = s.copSpeed;
+  // sliding count of still samples in (end - q, end], moved from the latest end back
+  let count = 0;
+  for (let i = lastEnd - q + 1; i <= lastEnd; i++) if (speed[i] < quietMmS) count++;
+  for (let end = lastEnd; end >= firstEnd; end--) {
+    if (count >= need) return { from: end - q + 1, to: end };
+    if (speed[end] < quietMmS) count--;
+    const enter = end - q;
+    if (enter < 0) break;
+    if (speed[enter] < quietMmS) count++;
+  }
+  return null;
+}

@@ -5,7 +5,8 @@ import { detectionParams, type DetectionParams } from './events';
 import { atEvents, phaseRows, tempoRatio } from './phases';
 import { DEFAULT_MAX_GAP_S, regularise } from './regularise';
 import { sensorForceWindows, type SensorWindows } from './sensor-forces';
-import { findSwings, type SwingCandidate } from './swings';
+import { nearestIndex } from './nearest';
+import { findSwings, promoteSwing, type DetectedSwing, type FindSwingsOptions, type SwingCandidate } from './swings';
 import {
   EVENT_NAMES,
   type AnalysisResult,
@@ -30,6 +31,19 @@ export interface AnalyzeOptions {
   sampleRateHz?: number;
   maxGapS?: number;
   detection?: Partial<DetectionParams>;
+  /** used only where the file's own metadata says nothing (e.g. the athlete's profile): options > file > these >
+   *  ANALYSIS_FALLBACKS; the file is never silently overridden */
+  fallback?: { handedness?: Handedness; stanceWidthMm?: number };
+  /** times (s) where a coach asked for a swing the finder rejected (promoteSwing) */
+  promote?: readonly number[];
+}
+
+export type ParameterSource = 'option' | 'file' | 'fallback' | 'default';
+
+/** Where each of the golfer's parameters came from, and what the file itself said. */
+export interface ParameterSources {
+  handedness: { used: Handedness; source: ParameterSource; file: Handedness | null };
+  stanceWidthMm: { used: number; source: ParameterSource; file: number | null };
 }
 
 export interface AnalysisOutput {
@@ -39,6 +53,7 @@ export interface AnalysisOutput {
   candidates: SwingCandidate[];
   /** per-sensor filtered forces over each swing's window [start_s, end_s] (same order as result.swings) */
   sensorWindows: SensorWindows;
+  parameters: ParameterSources;
 }
 
 function metaNumber(meta: Record<string, string>, key: string): number | undefined {
@@ -51,9 +66,12 @@ function metaNumber(meta: Record<string, string>, key: string): number | undefin
 export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: AnalyzeOptions = {}): AnalysisOutput {
   const meta = raw.metadata;
   const metaHand = meta.handedness === 'left' || meta.handedness === 'right' ? meta.handedness : undefined;
-  const handedness = opts.handedness ?? metaHand ?? ANALYSIS_FALLBACKS.handedness;
+  const metaWidth = metaNumber(meta, 'stance_width_mm');
+  const pick = <T>(option: T | undefined, file: T | undefined, fallback: T | undefined, def: T): [T, ParameterSource] =>
+    option !== undefined ? [option, 'option'] : file !== undefined ? [file, 'file'] : fallback !== undefined ? [fallback, 'fallback'] : [def, 'default'];
+  const [handedness, handSource] = pick(opts.handedness, metaHand, opts.fallback?.handedness, ANALYSIS_FALLBACKS.handedness);
   if (handedness !== 'right' && handedness !== 'left') throw new RangeError(`handedness must be right or left, got ${handedness}`);
-  const stanceWidthMm = opts.stanceWidthMm ?? metaNumber(meta, 'stance_width_mm') ?? ANALYSIS_FALLBACKS.stanceWidthMm;
+  const [stanceWidthMm, widthSource] = pick(opts.stanceWidthMm, metaWidth, opts.fallback?.stanceWidthMm, ANALYSIS_FALLBACKS.stanceWidthMm);
   if (!(stanceWidthMm > 0 && Number.isFinite(stanceWidthMm))) throw new RangeError(`stanceWidthMm must be a positive number, got ${stanceWidthMm}`);
   const maxGapS = opts.maxGapS ?? DEFAULT_MAX_GAP_S;
   const cutoffHz = opts.cutoffHz ?? DEFAULT_DERIVE.cutoffHz;
@@ -70,7 +88,9 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     derivativePolyOrder: DEFAULT_DERIVE.derivativePolyOrder,
   });
   detectionParams(stanceWidthMm, opts.detection); // validates overrides before the search
-  const { swings, candidates } = findSwings(series, { stanceWidthMm, impact: u.impact, params: opts.detection });
+  const finderOpts = { stanceWidthMm, impact: u.impact, params: opts.detection };
+  const found = findSwings(series, finderOpts);
+  const { swings, candidates } = withPromoted(series, found, opts.promote ?? [], finderOpts);
 
   const t = series.time;
   const results: SwingResult[] = swings.map((sw, k) => {
@@ -87,6 +107,7 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
       tempo_ratio: tempoRatio(series, sw.events),
       partial: sw.partial,
       forward_press: sw.forwardPress ? { time_s: t[sw.forwardPress.index], size_mm: sw.forwardPress.sizeMm } : null,
+      ...(sw.promoted ? { promoted: sw.promoted } : {}),
     };
   });
 
@@ -115,7 +136,42 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     gaps: u.gaps,
     swings: results,
   };
-  return { result, series, candidates, sensorWindows };
+  const parameters: ParameterSources = {
+    handedness: { used: handedness, source: handSource, file: metaHand ?? null },
+    stanceWidthMm: { used: stanceWidthMm, source: widthSource, file: metaWidth ?? null },
+  };
+  return { result, series, candidates, sensorWindows, parameters };
+}
+
+type PromotedSwing = DetectedSwing & { promoted?: 'detected' | 'placed' };
+
+/**
+ * The finder's swings plus the ones a coach asked for: each promoted time not already inside a found swing becomes a
+ * swing (promoteSwing: relaxed detection, else placed events), unless it would overlap one; its candidate is then
+ * marked accepted. Swings come back in time order.
+ */
+function withPromoted(
+  series: DerivedSeries,
+  found: { swings: DetectedSwing[]; candidates: SwingCandidate[] },
+  promote: readonly number[],
+  opts: FindSwingsOptions,
+): { swings: PromotedSwing[]; candidates: SwingCandidate[] } {
+  if (promote.length === 0) return found;
+  const swings: PromotedSwing[] = [...found.swings];
+  const candidates = found.candidates.map((c) => ({ ...c }));
+  const t = series.time;
+  for (const timeS of promote) {
+    if (!Number.isFinite(timeS)) throw new RangeError(`promoted time must be a finite number, got ${timeS}`);
+    if (timeS < t[0] || timeS > t[t.length - 1]) continue; // outside this recording's time axis
+    const at = nearestIndex(t, timeS);
+    if (swings.some((w) => at >= w.events.address && at <= w.events.finish)) continue;
+    const p = promoteSwing(series, at, opts);
+    if (swings.some((w) => p.events.address <= w.events.finish && p.events.finish >= w.events.address)) continue;
+    swings.push({ ...p, promoted: p.placed ? 'placed' : 'detected' });
+    for (const c of candidates) if (!c.accepted && c.peak >= p.events.top && c.peak <= p.events.finish) Object.assign(c, { accepted: true, reason: null });
+  }
+  swings.sort((a, b) => a.events.address - b.events.address);
+  return { swings, candidates };
 }
 
 export { roundAnalysis, seriesCsvChunks, seriesToCsv, SERIES_COLUMNS, type AnalysisJson, type JsonNumbers } from './format';

@@ -61,6 +61,7 @@ export function roundAnalysis(r: AnalysisResult): AnalysisJson {
       tempo_ratio: round(s.tempo_ratio, 2),
       partial: s.partial,
       forward_press: s.forward_press ? { time_s: round(s.forward_press.time_s, 3), size_mm: round(s.forward_press.size_mm, 1) } : null,
+      ...(s.promoted ? { promoted: s.promoted } : {}),
     })),
   };
 }

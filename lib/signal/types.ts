@@ -159,6 +159,8 @@ export interface SwingResult {
   partial: boolean;
   /** a small shift toward the lead foot right before the takeaway: its start (s) and lead-ward COP X travel (mm) */
   forward_press: { time_s: number; size_mm: number } | null;
+  /** present when a coach asked for this swing: 'detected' (relaxed checks) or 'placed' (events to adjust) */
+  promoted?: 'detected' | 'placed';
 }
 
 export interface AnalysisResult {

@@ -1,11 +1,13 @@
 // Address: the start of the takeaway, i.e. the first sample of the sustained trail-ward COP X move that leads to the
 // top. Back from the top: past a pause at the top (|vx| below half the quiet threshold, at most topPauseMaxS), through
-// the move while vx is trail-ward faster than half the quiet threshold (bridging short noisy dips), then on to where vx stops being trail-ward
-// at all (at most takeawayOnsetMaxS further: the slow first part of the move). A forward press ends exactly there,
-// because its velocity is lead-ward.
+// the move while vx is trail-ward faster than half the quiet threshold (bridging short noisy dips); the start is the
+// straight-line onset of the move's velocity (onset-line.ts: the line through the 25 % and 50 % points of its peak
+// speed, extended to zero), at most takeawayOnsetMaxS before the crossing and never before a lead-ward sample (a
+// forward press ends where the takeaway starts).
 // The still address: a still moment of at least quietMinS (quietFraction of its samples below the quiet threshold)
 // ending within preShotS before the takeaway: waggles and presses in that last second belong to the set-up.
 import type { DerivedSeries } from '../types';
+import { moveOnset } from './onset-line';
 import type { DetectionParams } from './params';
 
 /** The takeaway sample, or -1 when no trail-ward move precedes the top within backswingMaxS. */
@@ -27,9 +29,20 @@ export function findTakeaway(s: DerivedSeries, top: number, quietMmS: number, p:
     } else if (vx[j] > theta || ++quiet > gapN) break;
   }
   if (i - 1 < lo) return -1; // still moving at the edge of the search: no start found
+  // the start: the straight-line onset of the move's velocity (onset-line.ts), not before the last lead-ward
+  // sample (a forward press ends where the takeaway starts) and at most takeawayOnsetMaxS before the crossing
+  let peak = i;
+  for (let j = i; j <= top; j++) if (vx[j] < vx[peak]) peak = j;
   const onsetLo = Math.max(lo, i - Math.round(p.takeawayOnsetMaxS * fs));
-  while (i - 1 >= onsetLo && vx[i - 1] < 0) i--;
-  return i;
+  let floorIdx = onsetLo;
+  for (let j = i; j >= onsetLo; j--) {
+    if (vx[j] > theta) {
+      floorIdx = j + 1;
+      break;
+    }
+  }
+  const t0 = moveOnset(vx, peak, floorIdx);
+  return Number.isFinite(t0) ? Math.min(i, Math.round(t0)) : i;
 }
 
 /** The latest still moment [from, to] ending within preShotS before the takeaway, or null. */

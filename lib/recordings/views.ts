@@ -2,7 +2,7 @@ import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/practice-sessions';
-import { EVENT_NAMES, type EventName } from '@/lib/signal';
+import { EVENT_NAMES, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
 import type { RecordingOptions } from './options';
 
 // Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
@@ -33,12 +33,46 @@ export interface SwingView {
   leadPctAtImpact: number | null;
   hidden: boolean;
   stale: boolean;
+  /** a pitch or half swing: the shape of a full swing with clearly less travel toward the lead foot */
+  partial: boolean;
+  /** a small shift toward the lead foot right before the takeaway: start (s) and size (mm) */
+  forwardPress: { timeS: number; sizeMm: number } | null;
+  /** set when a coach counted a rejected candidate as a swing: 'detected' (relaxed checks) or 'placed' (events to adjust) */
+  promoted: 'detected' | 'placed' | null;
 }
 
-type SwingRow = { id: number; recording_id: number; swing_index: number; start_s: number; end_s: number; impact_source: 'marker' | 'detected'; tempo_ratio: number | null; hidden: boolean; stale: boolean };
+type SwingRow = {
+  id: number;
+  recording_id: number;
+  swing_index: number;
+  start_s: number;
+  end_s: number;
+  impact_source: 'marker' | 'detected';
+  tempo_ratio: number | null;
+  hidden: boolean;
+  stale: boolean;
+  partial: boolean;
+  forward_press_s: number | null;
+  forward_press_mm: number | null;
+  promoted: 'detected' | 'placed' | null;
+};
 
 async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
-  const swings: SwingRow[] = await query.select('s.id', 's.recording_id', 's.swing_index', 's.start_s', 's.end_s', 's.impact_source', 's.tempo_ratio', 's.hidden', 's.stale');
+  const swings: SwingRow[] = await query.select(
+    's.id',
+    's.recording_id',
+    's.swing_index',
+    's.start_s',
+    's.end_s',
+    's.impact_source',
+    's.tempo_ratio',
+    's.hidden',
+    's.stale',
+    's.partial',
+    's.forward_press_s',
+    's.forward_press_mm',
+    's.promoted',
+  );
   if (swings.length === 0) return [];
   const ids = swings.map((s) => s.id);
   const events = await db('swing_events').whereIn('swing_id', ids).select('swing_id', 'name', 'time_s', 'source', 'auto_time_s', 'misfit');
@@ -71,8 +105,25 @@ async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
       leadPctAtImpact: r1(leadAtImpact.get(s.id)),
       hidden: Boolean(s.hidden),
       stale: Boolean(s.stale),
+      partial: Boolean(s.partial),
+      forwardPress: s.forward_press_s === null ? null : { timeS: r3(s.forward_press_s) as number, sizeMm: r1(s.forward_press_mm) as number },
+      promoted: s.promoted ?? null,
     };
   });
+}
+
+export interface CandidateView {
+  timeS: number;
+  /** the rejection code (lib/signal REJECT_REASONS) */
+  reason: RejectReason;
+  /** the reason in plain words */
+  reasonText: string;
+}
+
+/** The candidates the last analysis rejected, in time order. */
+export async function candidateViews(recordingId: number): Promise<CandidateView[]> {
+  const rows = await db('recording_candidates').where({ recording_id: recordingId }).orderBy('time_s').select('time_s', 'reason');
+  return rows.map((c) => ({ timeS: r3(c.time_s) as number, reason: c.reason as RejectReason, reasonText: REJECT_REASONS[c.reason as RejectReason] ?? c.reason }));
 }
 
 export interface RecordingView {
@@ -92,6 +143,10 @@ export interface RecordingView {
   createdAt: string;
   processedAt: string | null;
   swings: SwingView[];
+  /** rejected swing candidates of the last analysis (the coach may promote one) */
+  candidates: CandidateView[];
+  /** candidates a coach counted as swings (POST .../candidates/promote), kept over every reprocess */
+  promotions: { id: number; timeS: number; reason: string; userId: number | null; at: string }[];
 }
 
 type RecordingRow = {
@@ -122,7 +177,7 @@ function requested(options: RecordingOptions): Record<string, unknown> {
   };
 }
 
-function toView(row: RecordingRow, swings: SwingView[]): RecordingView {
+function toView(row: RecordingRow, swings: SwingView[], candidates: CandidateView[] = [], promotions: RecordingView['promotions'] = []): RecordingView {
   const options = jsonColumn<RecordingOptions>(row.options)!;
   return {
     id: Number(row.id),
@@ -140,6 +195,8 @@ function toView(row: RecordingRow, swings: SwingView[]): RecordingView {
     createdAt: new Date(row.created_at).toISOString(),
     processedAt: row.processed_at ? new Date(row.processed_at).toISOString() : null,
     swings,
+    candidates,
+    promotions,
   };
 }
 
@@ -166,12 +223,19 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
   const row: RecordingRow | undefined = await db('recordings').where({ id }).first(RECORDING_COLUMNS);
   if (!row) return null;
   const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
-  return toView(row, swings);
+  const promotions = (await db('candidate_promotions').where({ recording_id: id }).orderBy('id').select('id', 'time_s', 'reason', 'user_id', 'at')).map((p) => ({
+    id: Number(p.id),
+    timeS: r3(p.time_s) as number,
+    reason: String(p.reason),
+    userId: p.user_id === null ? null : Number(p.user_id),
+    at: new Date(p.at).toISOString(),
+  }));
+  return toView(row, swings, await candidateViews(id), promotions);
 }
 
 export interface SessionRecordingsView {
   session: { id: number; athleteId: number; sessionDate: string; context: string; location: string | null };
-  recordings: (Omit<RecordingView, 'swings'> & { swingCount: number })[];
+  recordings: (Omit<RecordingView, 'swings' | 'candidates' | 'promotions'> & { swingCount: number })[];
   swings: SwingView[];
 }
 
@@ -191,7 +255,7 @@ export async function getSessionRecordingsView(sessionId: number): Promise<Sessi
       location: session.location,
     },
     recordings: rows.map((row) => {
-      const { swings: _unused, ...rest } = toView(row, []);
+      const { swings: _unused, candidates: _none, promotions: _nor, ...rest } = toView(row, []);
       return { ...rest, swingCount: swings.filter((s) => s.recordingId === Number(row.id) && !s.stale).length };
     }),
     swings,

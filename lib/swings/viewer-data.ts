@@ -1,5 +1,5 @@
 import 'server-only';
-import type { EventName } from '@/lib/signal';
+import { ANALYSIS_FALLBACKS, type EventName } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { SwingView } from '@/components/swings/swing-schemas';
 import { db } from '@/lib/db/client';
@@ -81,8 +81,8 @@ export async function layoutView(recordingId: number): Promise<Pick<SwingView, '
   const meta = jsonColumn<{ metadata?: Record<string, string> }>(row.metadata)?.metadata ?? {};
   return {
     layout: resolveLayout(options, meta),
-    handedness: params.handedness ?? options.handedness,
-    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm),
+    handedness: params.handedness ?? options.handedness ?? options.profileHandedness ?? ANALYSIS_FALLBACKS.handedness,
+    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm ?? options.profileStanceWidthMm ?? ANALYSIS_FALLBACKS.stanceWidthMm),
   };
 }
 

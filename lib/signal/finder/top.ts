@@ -2,11 +2,13 @@
 // filtered COP X. Just before the turn the COP is nearly at rest (the backswing slows down), just after it the
 // lead-ward move accelerates hard; so the minimum itself lies on a flat stretch where noise decides the sample, and
 // the smoothed derivative's zero crossing comes 10-40 ms early. The turn is found where the lead-ward move starts:
-// the straight-line onset (onset-line.ts) of the velocity of the filtered COP X (central differences; the 20 Hz
-// zero-lag filter keeps the flank sharp), near the smoothed derivative's last zero crossing before the transition.
+// the straight-line onset (onset-line.ts) of the velocity of the filtered COP X (symmetric differences over
+// +/- 20 ms; the 20 Hz zero-lag filter keeps the flank sharp), near the smoothed derivative's last zero crossing before the transition.
 import type { DerivedSeries } from '../types';
 import { moveOnset } from './onset-line';
 import type { DetectionParams } from './params';
+
+const VELOCITY_SPAN_S = 0.02;
 
 /** The top sample, or -1 when vx has no turn from <= 0 to > 0 between `lo` and the transition. */
 export function findTop(s: DerivedSeries, transition: number, lo: number, p: DetectionParams): number {
@@ -19,10 +21,13 @@ export function findTop(s: DerivedSeries, transition: number, lo: number, p: Det
   if (k - 1 < lo) return -1;
   const w = Math.max(2, Math.round(p.topSearchS * fs));
   // velocity of the filtered COP X from the crossing's neighbourhood up to past the transition
-  const a = Math.max(1, k - 1 - w);
-  const b = Math.min(n - 2, transition + 2 * w);
+  // (a symmetric difference over +/- VELOCITY_SPAN_S: short enough to keep the flank's straight part, long
+  // enough to average sensor noise at low body weight)
+  const h = Math.max(1, Math.round(VELOCITY_SPAN_S * fs));
+  const a = Math.max(h, k - 1 - w);
+  const b = Math.min(n - 1 - h, transition + 2 * w);
   const v = new Float64Array(b - a + 1);
-  for (let i = a; i <= b; i++) v[i - a] = ((x[i + 1] - x[i - 1]) * fs) / 2;
+  for (let i = a; i <= b; i++) v[i - a] = ((x[i + h] - x[i - h]) * fs) / (2 * h);
   let peak = 0;
   for (let i = 1; i < v.length; i++) if (v[i] > v[peak]) peak = i;
   let top = k - 1;

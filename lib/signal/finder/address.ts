@@ -16,10 +16,19 @@ export function findTakeaway(s: DerivedSeries, top: number, quietMmS: number, p:
   const fs = s.sampleRateHz;
   const lo = Math.max(0, top - Math.round(p.backswingMaxS * fs));
   const theta = quietMmS / 2;
+  // past the pause: back to the latest sample that ends a run of >= 50 ms trail-ward faster than theta (single
+  // noisy samples near the top are not the backswing)
+  const runN = Math.max(2, Math.round(0.05 * fs));
+  const pauseLo = Math.max(lo + runN, top - Math.round(p.topPauseMaxS * fs));
   let i = top;
-  const pauseLo = Math.max(lo, top - Math.round(p.topPauseMaxS * fs));
-  while (i > pauseLo && !(vx[i] < -theta)) i--;
-  if (!(vx[i] < -theta)) return -1;
+  for (let run = 0; ; i--) {
+    if (i < pauseLo - runN) return -1;
+    run = vx[i] < -theta ? run + 1 : 0;
+    if (run === runN) {
+      i += runN - 1;
+      break;
+    }
+  }
   // through the move; dips of up to takeawayGapS (noise on a slow part) are bridged, a lead-ward sample ends it
   const gapN = Math.max(1, Math.round(p.takeawayGapS * fs));
   for (let j = i - 1, quiet = 0; j >= lo; j--) {

@@ -60,6 +60,8 @@ export const DETECTION_DEFAULTS = {
   /** floor of the settle threshold: COP speed below which the finish counts as settled, mm/s; the threshold in
    *  use is the larger of this and 1.5 x the quiet threshold */
   settleSpeedMmS: 60,
+  /** most COP drift over the settled hold, mm (slow rolling onto the lead foot is not yet the finish) */
+  settleDriftMm: 5,
   /** how long the COP must stay settled, s */
   settleHoldS: 0.3,
   /** longest impact -> finish, s */

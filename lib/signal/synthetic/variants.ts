@@ -11,7 +11,7 @@ export interface FinderVariant {
   options: Omit<SessionOptions, 'seed'>;
 }
 
-export const TUNING_SEEDS: readonly number[] = [1, 2, 3];
+export const TUNING_SEEDS: readonly number[] = [1, 2, 3, 4, 5, 6];
 export const HELD_OUT_SEEDS: readonly number[] = [7301, 7302];
 
 const NOISE_X1 = 0.6; // N per sensor, the generator's default

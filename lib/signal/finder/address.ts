@@ -29,13 +29,13 @@ export function findTakeaway(s: DerivedSeries, top: number, quietMmS: number, p:
       break;
     }
   }
-  // through the move; dips of up to takeawayGapS (noise on a slow part) are bridged, a lead-ward sample ends it
+  // through the move; dips of up to takeawayGapS (noise on a slow part, even a noisy lead-ward sample) are bridged
   const gapN = Math.max(1, Math.round(p.takeawayGapS * fs));
   for (let j = i - 1, quiet = 0; j >= lo; j--) {
     if (vx[j] < -theta) {
       i = j;
       quiet = 0;
-    } else if (vx[j] > theta || ++quiet > gapN) break;
+    } else if (++quiet > gapN) break;
   }
   if (i - 1 < lo) return -1; // still moving at the edge of the search: no start found
   // the start: the straight-line onset of the move's velocity (onset-line.ts), not before the last lead-ward

@@ -38,7 +38,7 @@ export const DETECTION_DEFAULTS = {
   /** inside the backswing, dips of the trail-ward velocity this short are noise, s */
   takeawayGapS: 0.06,
   /** minimum trail-ward COP X travel from address to top, mm (scaled) */
-  minBackswingTravelMm: 20,
+  minBackswingTravelMm: 12,
   /** lead-ward COP X velocity that makes a candidate, mm/s (scaled); waggles and forward presses stay far below
    *  (~200 mm/s), walking and stepping exceed it and are told apart by the other checks */
   downswingPeakSpeedMmS: 300,

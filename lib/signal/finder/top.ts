@@ -30,11 +30,12 @@ export function findTop(s: DerivedSeries, transition: number, lo: number, p: Det
   for (let i = a; i <= b; i++) v[i - a] = ((x[i + h] - x[i - h]) * fs) / (2 * h);
   let peak = 0;
   for (let i = 1; i < v.length; i++) if (v[i] > v[peak]) peak = i;
-  let top = k - 1;
   const onset = moveOnset(v, peak, 0);
-  if (Number.isFinite(onset)) top = Math.round(onset) + a;
-  // the most trail-ward filtered COP X within a sample of the onset
-  let best = top;
-  for (let i = Math.max(lo, top - 1); i <= Math.min(transition - 1, top + 1); i++) if (x[i] < x[best]) best = i;
-  return Math.max(lo, Math.min(transition - 1, best));
+  if (!Number.isFinite(onset)) {
+    // no clean flank: the most trail-ward filtered COP X around the crossing
+    let top = k - 1;
+    for (let i = Math.max(lo, k - 1 - w); i <= Math.min(transition - 1, k + w); i++) if (x[i] < x[top]) top = i;
+    return top;
+  }
+  return Math.max(lo, Math.min(transition - 1, Math.round(onset) + a));
 }

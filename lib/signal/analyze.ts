@@ -42,8 +42,8 @@ export type ParameterSource = 'option' | 'file' | 'fallback' | 'default';
 
 /** Where each of the golfer's parameters came from, and what the file itself said. */
 export interface ParameterSources {
-  handedness: { used: Handedness; source: ParameterSource; file: Handedness | null };
-  stanceWidthMm: { used: number; source: ParameterSource; file: number | null };
+  handedness: { used: Handedness; source: ParameterSource; file: Handedness | null; fallback: Handedness | null };
+  stanceWidthMm: { used: number; source: ParameterSource; file: number | null; fallback: number | null };
 }
 
 export interface AnalysisOutput {
@@ -137,8 +137,8 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     swings: results,
   };
   const parameters: ParameterSources = {
-    handedness: { used: handedness, source: handSource, file: metaHand ?? null },
-    stanceWidthMm: { used: stanceWidthMm, source: widthSource, file: metaWidth ?? null },
+    handedness: { used: handedness, source: handSource, file: metaHand ?? null, fallback: opts.fallback?.handedness ?? null },
+    stanceWidthMm: { used: stanceWidthMm, source: widthSource, file: metaWidth ?? null, fallback: opts.fallback?.stanceWidthMm ?? null },
   };
   return { result, series, candidates, sensorWindows, parameters };
 }

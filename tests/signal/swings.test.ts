@@ -138,7 +138,7 @@ describe('promoteSwing(series, at, opts)', () => {
   it('places ordered events for the coach to adjust where even relaxed detection fails (walking)', () => {
     const { s, raw } = session({ seed: 15, swings: 0, distractors: ['walk'], durationS: 20 });
     const { series, candidates } = analyze(raw, s);
-    const walk = candidates.find((c) => c.reason === 'foot-lifted')!;
+    const walk = candidates.find((c) => !c.accepted)!;
     expect(walk).toBeDefined();
     const p = promoteSwing(series, walk.peak, { stanceWidthMm: 400 });
     expect(p.placed).toBe(true);
@@ -150,7 +150,7 @@ describe('promoteSwing(series, at, opts)', () => {
   it('a promoted time in analyzeRecording adds the swing and marks it promoted', () => {
     const { s, raw } = session({ seed: 15, swings: 1, distractors: ['walk'] });
     const base = analyze(raw, s);
-    const walk = base.candidates.find((c) => c.reason === 'foot-lifted')!;
+    const walk = base.candidates.find((c) => !c.accepted)!;
     const out = analyze(raw, s, { promote: [base.series.time[walk.peak]] });
     expect(out.result.swings).toHaveLength(base.result.swings.length + 1);
     expect(out.result.swings.filter((w) => w.promoted)).toHaveLength(1);

@@ -37,6 +37,8 @@ export async function promoteCandidate(recordingId: number, userId: number, inpu
     const row = await trx('recordings').where({ id: recordingId }).forUpdate().first('status');
     if (!row) throw new NotFoundError('No recording with this id.');
     if (row.status !== 'ready') throw new ConflictError('This recording is being analysed; promote a candidate once it is ready.');
+    const already = await trx('candidate_promotions').where({ recording_id: recordingId }).andWhereBetween('time_s', [input.timeS - MATCH_S, input.timeS + MATCH_S]).first('id');
+    if (already) throw new ConflictError('This candidate is already counted as a swing.');
     const candidate = await trx('recording_candidates')
       .where({ recording_id: recordingId })
       .andWhereBetween('time_s', [input.timeS - MATCH_S, input.timeS + MATCH_S])
@@ -45,8 +47,6 @@ export async function promoteCandidate(recordingId: number, userId: number, inpu
       throw new ZodError([{ code: 'custom', path: ['timeS'], message: `No rejected candidate at ${input.timeS} s; GET /api/recordings/${recordingId} lists them under "candidates".`, input: input.timeS }]);
     }
     const timeS = Number(candidate.time_s);
-    const already = await trx('candidate_promotions').where({ recording_id: recordingId }).andWhereBetween('time_s', [timeS - MATCH_S, timeS + MATCH_S]).first('id');
-    if (already) throw new ConflictError('This candidate is already counted as a swing.');
     const [id] = await trx('candidate_promotions').insert({ recording_id: recordingId, time_s: timeS, reason: candidate.reason, user_id: userId });
     await queue(trx, recordingId);
     const saved = await trx('candidate_promotions').where({ id }).first('id', 'time_s', 'reason', 'user_id', 'at');

@@ -21,6 +21,8 @@ export const swingSummarySchema = z.object({
   leadPctAtImpact: z.number().nullable(),
   hidden: z.boolean(),
   stale: z.boolean(),
+  /** a pitch or half swing (issue 9); optional so older responses still parse */
+  partial: z.boolean().optional(),
 });
 
 export const recordingErrorSchema = z.object({ message: z.string(), line: z.number().nullable(), column: z.number().nullable() });
@@ -34,6 +36,8 @@ const recordingBase = {
   status: z.enum(recordingStatusValues),
   error: recordingErrorSchema.nullable(),
   parameters: z.record(z.string(), z.unknown()),
+  /** where handedness and stance width came from (issue 9); optional so older responses still parse */
+  parameterSources: z.record(z.string(), z.unknown()).nullable().optional(),
   algorithmVersion: z.string().nullable(),
   createdAt: z.string(),
   processedAt: z.string().nullable(),

@@ -17,8 +17,7 @@ function isEntry(v: unknown): v is Entry {
 const LABEL = { handedness: 'Plays', stanceWidthMm: 'Stance width' } as const;
 const fmt = (key: keyof typeof LABEL, v: string | number) => (key === 'stanceWidthMm' ? `${v} mm` : v === 'left' ? 'left-handed' : 'right-handed');
 
-export function ParameterSources({ parameters }: { parameters: Record<string, unknown> }) {
-  const sources = parameters.sources as Record<string, unknown> | undefined;
+export function ParameterSources({ sources }: { sources: Record<string, unknown> | null | undefined }) {
   if (!sources) return null;
   const rows = (Object.keys(LABEL) as (keyof typeof LABEL)[]).flatMap((key) => {
     const e = sources[key];

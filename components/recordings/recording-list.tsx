@@ -19,7 +19,7 @@ export function RecordingList({ recordings }: { recordings: SessionRecording[] }
             {r.status === 'ready' && <span className="text-xs text-ink-muted">{r.swingCount === 1 ? '1 swing' : `${r.swingCount} swings`}</span>}
             {r.algorithmVersion && <span className="text-xs text-ink-faint">{r.algorithmVersion}</span>}
           </div>
-          {r.status === 'ready' && <ParameterSources parameters={r.parameters} />}
+          {r.status === 'ready' && <ParameterSources sources={r.parameterSources} />}
           {r.status === 'failed' && r.error && <RecordingErrorNote error={r.error} />}
           {r.status === 'ready' && r.swingCount === 0 && <NoSwingsNote />}
         </li>

@@ -205,8 +205,9 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     out.candidates.filter((c) => !c.accepted && c.reason && c.reason !== 'inside-previous-swing').map((c) => ({ recording_id: recordingId, time_s: t[c.peak], reason: c.reason })),
   );
 
-  const { algorithm_version: algorithmVersion, ...processing } = out.result.processing;
-  const parameters = { ...processing, sources: out.parameters };
+  // the processing block exactly as `npm run analyze` prints it; where the golfer's parameters came from (form, file,
+  // profile, default) goes with the recording's metadata
+  const { algorithm_version: algorithmVersion, ...parameters } = out.result.processing;
   await trx('recordings').where({ id: recordingId }).update({
     status: 'ready',
     error_message: null,
@@ -214,7 +215,7 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     error_column: null,
     parameters: JSON.stringify(parameters),
     algorithm_version: algorithmVersion,
-    metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps }),
+    metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps, parameter_sources: out.parameters }),
     processed_at: trx.raw('NOW(3)'),
   });
 }

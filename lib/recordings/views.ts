@@ -137,6 +137,9 @@ export interface RecordingView {
   error: { message: string; line: number | null; column: number | null } | null;
   /** the processing parameters of the last analysis; before one, the requested values */
   parameters: Record<string, unknown>;
+  /** where handedness and stance width came from (form > file > athlete profile > default) and what the file and
+   *  the profile said; null before the first analysis */
+  parameterSources: Record<string, unknown> | null;
   options: RecordingOptions;
   algorithmVersion: string | null;
   recording: Record<string, unknown> | null;
@@ -189,6 +192,7 @@ function toView(row: RecordingRow, swings: SwingView[], candidates: CandidateVie
     status: row.status,
     error: row.status === 'failed' ? { message: row.error_message ?? 'processing failed', line: row.error_line, column: row.error_column } : null,
     parameters: jsonColumn<Record<string, unknown>>(row.parameters) ?? requested(options),
+    parameterSources: (jsonColumn<Record<string, unknown>>(row.metadata)?.parameter_sources as Record<string, unknown> | undefined) ?? null,
     options,
     algorithmVersion: row.algorithm_version,
     recording: jsonColumn<Record<string, unknown>>(row.metadata),

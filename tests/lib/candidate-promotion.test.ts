@@ -91,7 +91,7 @@ describe('parameter precedence: form > file metadata > athlete profile > default
     const options = await optionsFor(coach, uploadFieldsSchema.parse({ athleteId: '1' }));
     const { view } = await processed(golf.csv(), options);
     expect(view.parameters).toMatchObject({ stance_width_mm: 400, handedness: 'right' }); // the file says 400 mm, right
-    expect((view.parameters as { sources: unknown }).sources).toMatchObject({
+    expect(view.parameterSources).toMatchObject({
       stanceWidthMm: { used: 400, source: 'file', file: 400, fallback: 380 },
       handedness: { used: 'right', source: 'file', file: 'right', fallback: 'left' },
     });
@@ -105,8 +105,8 @@ describe('parameter precedence: form > file metadata > athlete profile > default
     await db('athletes').where({ id: 1 }).update({ stance_width_mm: 380, handedness: 'right' });
     const bare = golf.csv().replace(/^# stance_width_mm: .*\n/m, '');
     const fromProfile = await processed(bare, await optionsFor(coach, uploadFieldsSchema.parse({ athleteId: '1' })));
-    expect((fromProfile.view.parameters as { sources: { stanceWidthMm: unknown } }).sources.stanceWidthMm).toEqual({ used: 380, source: 'fallback', file: null, fallback: 380 });
+    expect(fromProfile.view.parameterSources!.stanceWidthMm).toEqual({ used: 380, source: 'fallback', file: null, fallback: 380 });
     const fromForm = await processed(golf.csv(), await optionsFor(coach, uploadFieldsSchema.parse({ athleteId: '1', stanceWidthMm: '420' })));
-    expect((fromForm.view.parameters as { sources: { stanceWidthMm: unknown } }).sources.stanceWidthMm).toEqual({ used: 420, source: 'option', file: 400, fallback: 380 });
+    expect(fromForm.view.parameterSources!.stanceWidthMm).toEqual({ used: 420, source: 'option', file: 400, fallback: 380 });
   });
 });

@@ -28,7 +28,12 @@ const APP_TABLES = [
   'bands',
   'drills',
   'drill_assignments',
+  // issue 9: the finder's rejected candidates and the coach's promotions
+  'recording_candidates',
+  'candidate_promotions',
 ];
+/** a migration named ..._add_<what>_to_<table>.ts alters an existing table instead of creating one */
+const ALTER = /_add_[a-z0-9_]+_to_([a-z0-9_]+)\.ts$/;
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 
 let scratch: ScratchDatabase;
@@ -40,13 +45,18 @@ afterAll(async () => {
 });
 
 describe('migrations', () => {
-  it('are timestamped .ts files, one per table, in schema order', async () => {
+  it('are timestamped .ts files, one per table (or one change to an earlier table), in schema order', async () => {
     const names = await new TsMigrationSource().getMigrations();
-    expect(names).toHaveLength(APP_TABLES.length);
-    names.forEach((name, index) => {
+    const creates = names.filter((name) => !ALTER.test(name));
+    expect(creates).toHaveLength(APP_TABLES.length);
+    creates.forEach((name, index) => {
       expect(name).toMatch(/^\d{14}_[a-z0-9_]+\.ts$/);
       expect(name).toContain(APP_TABLES[index]);
     });
+    for (const name of names.filter((n) => ALTER.test(n))) {
+      const table = ALTER.exec(name)![1];
+      expect(names.findIndex((n) => !ALTER.test(n) && n.includes(`_${table}.ts`))).toBeLessThan(names.indexOf(name)); // altered after it was created
+    }
   });
 
   it('latest -> rollback all -> latest gives the same tables each way', async () => {
@@ -62,12 +72,15 @@ describe('migrations', () => {
     expect(await listTables(db)).toEqual(afterFirst);
   });
 
-  it('each down() removes exactly its own table, newest first', async () => {
+  it('each down() removes exactly its own table (or undoes its own change), newest first', async () => {
     const { db } = scratch;
     await db.migrate.latest();
-    for (let remaining = APP_TABLES.length; remaining > 0; remaining -= 1) {
+    const names = await new TsMigrationSource().getMigrations();
+    let remaining = APP_TABLES.length;
+    for (const name of [...names].reverse()) {
       await db.migrate.down();
-      expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining - 1), ...KNEX_TABLES].sort());
+      if (!ALTER.test(name)) remaining -= 1;
+      expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining), ...KNEX_TABLES].sort());
     }
     await db.migrate.latest();
     expect(await listTables(db)).toHaveLength(APP_TABLES.length + KNEX_TABLES.length);
@@ -88,6 +101,10 @@ describe('migrations', () => {
     const column = (t: string, c: string) => columns.find((row) => row.t === t && row.c === c);
     expect(column('users', 'role')?.type).toBe("enum('admin','coach','student','researcher')");
     expect(column('users', 'email')?.type).toBe('varchar(254)');
+    // issue 9: what the finder says about a swing
+    expect(column('swings', 'partial')?.type).toBe('tinyint(1)');
+    expect(column('swings', 'promoted')?.type).toBe("enum('detected','placed')");
+    expect(column('swings', 'forward_press_mm')?.nullable).toBe('YES');
     expect(column('athletes', 'stance_width_mm')).toMatchObject({ type: 'smallint(5) unsigned', nullable: 'NO', def: '400' });
     expect(column('athletes', 'handedness')).toMatchObject({ type: "enum('right','left')", def: "'right'" });
     expect(column('athletes', 'user_id')?.nullable).toBe('YES');

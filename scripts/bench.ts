@@ -14,17 +14,15 @@ import {
   builtinLayout,
   createRecordingReader,
   derive,
-  DISTRACTORS,
   findSwings,
-  generateSession,
   phaseRows,
   regularise,
   sosfilt,
   zeroLagDesign,
   zeroLagLowpass,
   DEFAULT_CUTOFF_HZ,
-  type SessionOptions,
 } from '@/lib/signal';
+import { DISTRACTORS, generateSession, type SessionOptions } from '@/lib/signal/synthetic';
 
 const TARGET = { analyzeS: 1.5, rssMb: 400, filterMsps: 50 };
 const now = () => performance.now() / 1000;

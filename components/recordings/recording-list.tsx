@@ -1,5 +1,6 @@
 import { formatBytes } from './format';
 import { NoSwingsNote } from './no-swings-note';
+import { ParameterSources } from './parameter-sources';
 import { RecordingErrorNote } from './recording-error-note';
 import { StatusBadge } from './status-badge';
 import type { SessionRecording } from '@/lib/contracts/recordings';
@@ -18,6 +19,7 @@ export function RecordingList({ recordings }: { recordings: SessionRecording[] }
             {r.status === 'ready' && <span className="text-xs text-ink-muted">{r.swingCount === 1 ? '1 swing' : `${r.swingCount} swings`}</span>}
             {r.algorithmVersion && <span className="text-xs text-ink-faint">{r.algorithmVersion}</span>}
           </div>
+          {r.status === 'ready' && <ParameterSources sources={r.parameterSources} />}
           {r.status === 'failed' && r.error && <RecordingErrorNote error={r.error} />}
           {r.status === 'ready' && r.swingCount === 0 && <NoSwingsNote />}
         </li>

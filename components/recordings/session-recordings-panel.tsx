@@ -26,6 +26,7 @@ function toRows(view: SessionRecordings): SwingRow[] {
       tempoRatio: s.tempoRatio,
       impactSource: s.impactSource,
       stale: s.stale,
+      partial: s.partial ?? false,
     }));
 }
 

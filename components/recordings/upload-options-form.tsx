@@ -34,6 +34,7 @@ export function UploadOptionsForm({
   sessions,
   profiles,
   disabled,
+  athlete,
 }: {
   value: UploadOptionsState;
   onChange: (next: UploadOptionsState) => void;
@@ -41,6 +42,8 @@ export function UploadOptionsForm({
   sessions: PracticeSession[];
   profiles: SavedProfile[];
   disabled?: boolean;
+  /** the player's profile: used only where the file does not say */
+  athlete?: { handedness: 'right' | 'left'; stanceWidthMm: number };
 }) {
   const set = <K extends keyof UploadOptionsState>(key: K, v: UploadOptionsState[K]) => onChange({ ...value, [key]: v });
   const invalid = (key: keyof OptionErrors) => (errors[key] ? { 'aria-invalid': true, 'aria-describedby': `${key}-error` } : {});
@@ -125,17 +128,17 @@ export function UploadOptionsForm({
         <div className="space-y-1.5">
           <span className="block text-sm font-medium text-ink">Plays</span>
           <div className="flex gap-6 text-sm">
-            {(['right', 'left'] as const).map((h) => (
-              <label key={h} className="inline-flex items-center gap-2">
+            {(['', 'right', 'left'] as const).map((h) => (
+              <label key={h || 'file'} className="inline-flex items-center gap-2">
                 <input type="radio" name="handedness" value={h} disabled={disabled} checked={value.handedness === h} onChange={() => set('handedness', h)} />
-                {h === 'right' ? 'Right-handed' : 'Left-handed'}
+                {h === 'right' ? 'Right-handed' : h === 'left' ? 'Left-handed' : `As the file says${athlete ? ` (else ${athlete.handedness}-handed, from the profile)` : ''}`}
               </label>
             ))}
           </div>
           {errors.handedness && <p className="text-xs font-medium text-danger">{errors.handedness}</p>}
         </div>
         <div className="grid gap-4 sm:grid-cols-2">
-          <Field id="stanceWidthMm" label="Stance width (mm)" hint={`From the player's profile; ${STANCE_WIDTH_MIN_MM}-${STANCE_WIDTH_MAX_MM} mm.`} error={errors.stanceWidthMm}>
+          <Field id="stanceWidthMm" label="Stance width (mm)" hint={`Leave empty to use the file's own value, else the player's profile${athlete ? ` (${athlete.stanceWidthMm} mm)` : ''}; ${STANCE_WIDTH_MIN_MM}-${STANCE_WIDTH_MAX_MM} mm.`} error={errors.stanceWidthMm}>
             <input
               id="stanceWidthMm"
               type="number"
@@ -143,6 +146,7 @@ export function UploadOptionsForm({
               className={inputClass}
               disabled={disabled}
               value={value.stanceWidthMm}
+              placeholder="from the file"
               onChange={(e) => set('stanceWidthMm', e.target.value)}
               {...invalid('stanceWidthMm')}
             />

@@ -16,7 +16,9 @@ export type UploadOptionsState = {
   profileChoice: string;
   profileFile: { name: string; text: string } | null;
   saveProfileAs: string;
-  handedness: 'right' | 'left';
+  /** '' = the file's own metadata, else the player's profile (an explicit choice here wins over both) */
+  handedness: '' | 'right' | 'left';
+  /** '' = the file's own metadata, else the player's profile */
   stanceWidthMm: string;
   cutoffHz: string;
 };
@@ -24,7 +26,10 @@ export type UploadOptionsState = {
 export type OptionErrors = Partial<Record<'sessionId' | 'layout' | 'profile' | 'profileId' | 'saveProfileAs' | 'handedness' | 'stanceWidthMm' | 'cutoffHz' | '_form', string>>;
 
 export function toUploadFields(athleteId: number, o: UploadOptionsState): Record<string, string> {
-  const fields: Record<string, string> = { athleteId: String(athleteId), handedness: o.handedness, stanceWidthMm: o.stanceWidthMm, cutoffHz: o.cutoffHz };
+  const fields: Record<string, string> = { athleteId: String(athleteId), cutoffHz: o.cutoffHz };
+  // precedence: a value chosen here > the file's metadata > the player's profile > defaults (lib/recordings/options.ts)
+  if (o.handedness) fields.handedness = o.handedness;
+  if (o.stanceWidthMm.trim()) fields.stanceWidthMm = o.stanceWidthMm;
   if (o.sessionId) fields.sessionId = o.sessionId;
   if (o.layoutChoice === 'file') fields.layout = o.layoutFile?.text ?? '';
   else if (o.layoutChoice) fields.layout = o.layoutChoice;

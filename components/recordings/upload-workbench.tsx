@@ -46,8 +46,8 @@ export function UploadWorkbench({
     profileChoice: '',
     profileFile: null,
     saveProfileAs: '',
-    handedness: athlete.handedness,
-    stanceWidthMm: String(athlete.stanceWidthMm),
+    handedness: '',
+    stanceWidthMm: '',
     cutoffHz: String(defaultCutoffHz),
   });
   const [errors, setErrors] = useState<OptionErrors>({});
@@ -132,7 +132,7 @@ export function UploadWorkbench({
             ))}
           </select>
         </Field>
-        <UploadOptionsForm value={options} onChange={setOptions} errors={errors} sessions={sessions} profiles={profiles} disabled={busy} />
+        <UploadOptionsForm value={options} onChange={setOptions} errors={errors} sessions={sessions} profiles={profiles} disabled={busy} athlete={athlete} />
       </div>
 
       <div className="space-y-4">

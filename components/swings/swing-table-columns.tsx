@@ -17,6 +17,8 @@ export type SwingRow = {
   tempoRatio: number | null;
   impactSource: 'marker' | 'detected';
   stale: boolean;
+  /** a pitch or half swing: smaller weight shift than the golfer's full swings */
+  partial?: boolean;
 };
 
 export type NumberRange = [number | undefined, number | undefined];
@@ -51,6 +53,7 @@ export const swingColumns: ColumnDef<SwingRow>[] = [
           Swing {row.original.index}
         </Link>
         {row.original.stale && <Badge tone="notice">Kept: manual corrections</Badge>}
+        {row.original.partial && <Badge tone="neutral">Partial</Badge>}
       </span>
     ),
   },

@@ -44,6 +44,8 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
   const [label, setLabel] = useState('');
   const [lead, setLead] = useState<[string, string]>(['', '']);
   const [tempo, setTempo] = useState<[string, string]>(['', '']);
+  const [hidePartial, setHidePartial] = useState(false);
+  const data = useMemo(() => (hidePartial ? rows.filter((r) => !r.partial) : rows), [rows, hidePartial]);
 
   const columnFilters = useMemo<ColumnFiltersState>(() => {
     const f: ColumnFiltersState = [];
@@ -58,7 +60,7 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
   }, [recording, club, label, lead, tempo]);
 
   const table = useReactTable({
-    data: rows,
+    data,
     columns: swingColumns,
     state: { sorting, columnFilters },
     onSortingChange: setSorting,
@@ -93,6 +95,10 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
         </label>
         <RangeFilter label="Lead % at impact" id="filter-lead" value={lead} onChange={setLead} />
         <RangeFilter label="Tempo (x : 1)" id="filter-tempo" value={tempo} onChange={setTempo} />
+        <label className="inline-flex items-center gap-2 pb-1.5 text-sm" title="Partial swings: pitches and half swings, with a smaller weight shift than full swings">
+          <input type="checkbox" checked={hidePartial} onChange={(e) => setHidePartial(e.target.checked)} data-testid="filter-hide-partial" />
+          Hide partial swings
+        </label>
       </div>
       <p className="text-xs text-ink-muted" data-testid="swing-count-shown">
         {shown.length === rows.length ? `${rows.length} swings` : `${shown.length} of ${rows.length} swings`}

@@ -130,7 +130,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
   return (
     <div className="space-y-3" data-testid="swing-workbench" data-can-edit={canEdit ? 'true' : 'false'}>
       <SwingFacts swing={swing} />
-      <MemoRecordingOverview overview={swing.overview} siblings={swing.siblings} window={win} onJump={onJump} />
+      <MemoRecordingOverview overview={swing.overview} siblings={swing.siblings} window={win} onJump={onJump} recordingId={swing.recording.id} canEdit={canEdit} />
       {canEdit && usable && (
         <EventEditBar
           swing={swing}

@@ -1,4 +1,4 @@
-// Demo recordings: invented sessions made by the project's synthetic generator (lib/signal/synthetic.ts), stored
+// Demo recordings: invented sessions made by the project's synthetic generator (lib/signal/synthetic), stored
 // and processed through the same pipeline as an upload (raw file into the store, recording row + job, the worker's
 // processing code), so the demo coach opens sessions that already have swings. Deterministic: fixed seeds and ids.
 import { createHash } from 'node:crypto';

@@ -18,11 +18,11 @@ export { MIN_BAND_SWINGS };
 const nanOf = (v: number | null) => (v === null ? NaN : v);
 
 /** Loads the registration input of the given swings; missing series or events come back with a reason. */
-export async function loadSwingCurves(swingIds: number[]): Promise<{ usable: SwingCurves[]; unusable: { id: number; reason: string }[] }> {
+export async function loadSwingCurves(swingIds: number[], opts: { includePartial?: boolean } = {}): Promise<{ usable: SwingCurves[]; unusable: { id: number; reason: string }[] }> {
   const [series, events, swings] = await Promise.all([
     db('swing_series').whereIn('swing_id', swingIds).select('swing_id', 'data'),
     db('swing_events').whereIn('swing_id', swingIds).select('swing_id', 'name', 'time_s'),
-    db('swings').whereIn('id', swingIds).select('id', 'hidden'),
+    db('swings').whereIn('id', swingIds).select('id', 'hidden', 'partial'),
   ]);
   const usable: SwingCurves[] = [];
   const unusable: { id: number; reason: string }[] = [];
@@ -31,6 +31,7 @@ export async function loadSwingCurves(swingIds: number[]): Promise<{ usable: Swi
     const row = series.find((s) => Number(s.swing_id) === id);
     if (!swing) unusable.push({ id, reason: 'no swing with this id' });
     else if (swing.hidden) unusable.push({ id, reason: 'it is marked "not a swing"' });
+    else if (swing.partial && !opts.includePartial) unusable.push({ id, reason: 'it is a partial swing (pitch or half swing); bands leave these out' });
     else if (!row) unusable.push({ id, reason: 'its full-rate series is not stored (reprocess the recording)' });
     else {
       const stored = parseStoredSeries(row.data);

@@ -8,8 +8,9 @@ import { mean, smallSetNote, welchInterval } from './stats';
 
 export type { MetricDifference };
 
-export function compareSets(swings: SwingFacts[], a: string, b: string, metrics: string[]) {
-  const visible = swings.filter((s) => !s.hidden);
+export function compareSets(swings: SwingFacts[], a: string, b: string, metrics: string[], opts: { includePartial?: boolean } = {}) {
+  // partial swings (pitches, half swings) are left out unless asked for: they would mix two kinds of motion
+  const visible = swings.filter((s) => !s.hidden && (opts.includePartial || !s.partial));
   const setA = visible.filter((s) => inSet(s, a));
   const setB = visible.filter((s) => inSet(s, b));
   const side = (set: string, list: SwingFacts[]) => ({

@@ -10,8 +10,15 @@ export interface SessionInfo {
   context: string;
 }
 
-export function progressBySession(sessions: SessionInfo[], swings: SwingFacts[], metrics: string[], scoreOf: (s: SwingFacts) => { passed: number; total: number } | null) {
-  const visible = swings.filter((s) => !s.hidden);
+export function progressBySession(
+  sessions: SessionInfo[],
+  swings: SwingFacts[],
+  metrics: string[],
+  scoreOf: (s: SwingFacts) => { passed: number; total: number } | null,
+  opts: { includePartial?: boolean } = {},
+) {
+  // partial swings (pitches, half swings) are left out unless asked for
+  const visible = swings.filter((s) => !s.hidden && (opts.includePartial || !s.partial));
   return [...sessions]
     .sort((x, y) => (x.date < y.date ? -1 : x.date > y.date ? 1 : x.id - y.id))
     .map((session) => {

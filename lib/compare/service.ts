@@ -36,7 +36,7 @@ export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a
   await requireAthleteRead(viewer, athleteId);
   const facts = await swingFacts({ athleteId });
   const result = compareSets(facts, q.a, q.b, q.metrics);
-  const idsOf = (set: string) => facts.filter((s) => !s.hidden && (set.startsWith('context:') ? s.context === set.slice(8) : s.sessionDate.startsWith(`${set.slice(6)}-`))).map((s) => s.id);
+  const idsOf = (set: string) => facts.filter((s) => !s.hidden && !s.partial && (set.startsWith('context:') ? s.context === set.slice(8) : s.sessionDate.startsWith(`${set.slice(6)}-`))).map((s) => s.id);
   const [ca, cb] = await Promise.all([meanCurve(idsOf(q.a)), meanCurve(idsOf(q.b))]);
   return { a: { ...result.a, meanCurve: ca }, b: { ...result.b, meanCurve: cb }, differences: result.differences };
 }

@@ -26,7 +26,19 @@ export const swingSummarySchema = z.object({
   leadPctAtImpact: z.number().nullable(),
   hidden: z.boolean(),
   stale: z.boolean(),
+  /** a pitch or half swing: the shape of a full swing with clearly less travel toward the lead foot */
+  partial: z.boolean(),
+  /** a small shift toward the lead foot right before the takeaway: start (s) and size (mm) */
+  forwardPress: z.object({ timeS: z.number(), sizeMm: z.number() }).nullable(),
+  /** set when a coach counted a rejected candidate as a swing: 'detected' (relaxed checks) or 'placed' (events to adjust) */
+  promoted: z.enum(['detected', 'placed']).nullable(),
 });
+
+/** A move the swing finder looked at and did not count: the rejection code (lib/signal REJECT_REASONS) and the
+ *  reason in plain words. */
+export const candidateSchema = z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() });
+/** A candidate a coach counted as a swing (POST .../candidates/promote), kept over every reprocess. */
+export const promotionSchema = z.object({ id: z.number().int(), timeS: z.number(), reason: z.string(), userId: z.number().int().nullable(), at: z.string() });
 
 export const recordingErrorSchema = z.object({ message: z.string(), line: z.number().nullable(), column: z.number().nullable() });
 
@@ -42,6 +54,8 @@ const recordingBase = {
   /** the processing parameters of the last analysis; before one, the requested values */
   parameters: z.record(z.string(), z.unknown()),
   options: recordingOptionsSchema,
+  /** where handedness and stance width came from: the upload form, the file's metadata, the athlete's profile or the default */
+  parameterSources: z.record(z.string(), z.unknown()).nullable(),
   algorithmVersion: z.string().nullable(),
   /** the file's metadata lines */
   recording: z.record(z.string(), z.unknown()).nullable(),
@@ -49,7 +63,13 @@ const recordingBase = {
   processedAt: z.string().nullable(),
 };
 
-export const recordingViewSchema = z.object({ ...recordingBase, swings: z.array(swingSummarySchema) });
+export const recordingViewSchema = z.object({
+  ...recordingBase,
+  swings: z.array(swingSummarySchema),
+  /** rejected swing candidates of the last analysis (the coach may promote one) */
+  candidates: z.array(candidateSchema),
+  promotions: z.array(promotionSchema),
+});
 
 export const sessionRecordingsSchema = z.object({
   session: z.object({ id: z.number().int(), athleteId: z.number().int(), sessionDate: z.string(), context: z.string(), location: z.string().nullable() }),
@@ -64,6 +84,8 @@ export const uploadResponseSchema = z.object({
 });
 
 export type SwingSummary = z.infer<typeof swingSummarySchema>;
+export type CandidateView = z.infer<typeof candidateSchema>;
+export type PromotionView = z.infer<typeof promotionSchema>;
 export type UploadResponse = z.infer<typeof uploadResponseSchema>;
 export type RecordingView = z.infer<typeof recordingViewSchema>;
 export type SessionRecordings = z.infer<typeof sessionRecordingsSchema>;
@@ -71,3 +93,7 @@ export type SessionRecording = SessionRecordings['recordings'][number];
 export type RecordingError = z.infer<typeof recordingErrorSchema>;
 
 export const isSettled = (status: RecordingStatus) => status === 'ready' || status === 'failed';
+
+/** POST /api/recordings/:id/candidates/promote: a rejected candidate's time as GET /api/recordings/:id lists it. */
+export const promoteSchema = z.strictObject({ timeS: z.number({ error: 'timeS must be a number of seconds.' }).finite() });
+export type PromoteInput = z.infer<typeof promoteSchema>;

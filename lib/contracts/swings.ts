@@ -28,6 +28,12 @@ export const swingDetailSchema = z.object({
   tempoRatio: num,
   hidden: z.boolean(),
   stale: z.boolean(),
+  /** a pitch or half swing (less travel toward the lead foot than the golfer's full swings) */
+  partial: z.boolean(),
+  /** a small shift toward the lead foot right before the takeaway */
+  forwardPress: z.object({ timeS: z.number(), sizeMm: z.number() }).nullable(),
+  /** a coach counted this rejected candidate as a swing */
+  promoted: z.enum(['detected', 'placed']).nullable(),
   recording: z.object({ id: z.number().int(), filename: z.string(), algorithmVersion: z.string().nullable(), parameters: z.record(z.string(), z.unknown()) }),
   session: z.object({ id: z.number().int(), sessionDate: z.string(), context: z.enum(['lesson', 'practice', 'on-course']) }),
   athlete: z.object({ id: z.number().int(), displayName: z.string(), dateOfBirth: z.string().nullable() }),
@@ -93,7 +99,13 @@ export const swingViewSchema = swingDetailSchema.extend({
     copY: nullableSeries,
     copSpeed: nullableSeries,
   }),
-  overview: z.object({ time: z.array(z.number()), leadPct: nullableSeries, copX: nullableSeries }),
+  overview: z.object({
+    time: z.array(z.number()),
+    leadPct: nullableSeries,
+    copX: nullableSeries,
+    /** moves the swing finder looked at and did not count, with the reason in plain words */
+    candidates: z.array(z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() })),
+  }),
   siblings: z.object({
     previousId: z.number().int().nullable(),
     nextId: z.number().int().nullable(),

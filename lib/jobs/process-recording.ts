@@ -27,7 +27,9 @@ export async function analyzeStored(
   try {
     const raw = await readStoredRecording(await store.read(row.storage_key), profileOf(options));
     const layout = resolveLayout(options, raw.metadata);
-    return { out: analyzeRecording(raw, layout, analyzeOptionsOf(options)) };
+    // a coach's promoted candidates are detected again on every analysis (lib/recordings/promote.ts)
+    const promote: number[] = (await db('candidate_promotions').where({ recording_id: recordingId }).orderBy('id').pluck('time_s')).map(Number);
+    return { out: analyzeRecording(raw, layout, analyzeOptionsOf(options, promote)) };
   } catch (error) {
     if (error instanceof SignalInputError) {
       // the message already starts with "line L, column C: " when the problem has a place in the file

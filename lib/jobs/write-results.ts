@@ -88,6 +88,10 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
       end_s: s.end_s,
       impact_source: s.impact_source,
       tempo_ratio: finiteOrNull(s.tempo_ratio),
+      partial: s.partial,
+      forward_press_s: s.forward_press ? s.forward_press.time_s : null,
+      forward_press_mm: s.forward_press ? finiteOrNull(s.forward_press.size_mm) : null,
+      promoted: s.promoted ?? null,
     });
     ids.push(Number(id));
   }
@@ -194,6 +198,15 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     data: JSON.stringify({ t: display.t, traces: display.traces }),
   });
 
+  // the candidates the finder rejected (not the ones inside a found swing): the coach may promote one
+  await trx('recording_candidates').where({ recording_id: recordingId }).delete();
+  await chunked(
+    'recording_candidates',
+    out.candidates.filter((c) => !c.accepted && c.reason && c.reason !== 'inside-previous-swing').map((c) => ({ recording_id: recordingId, time_s: t[c.peak], reason: c.reason })),
+  );
+
+  // the processing block exactly as `npm run analyze` prints it; where the golfer's parameters came from (form, file,
+  // profile, default) goes with the recording's metadata
   const { algorithm_version: algorithmVersion, ...parameters } = out.result.processing;
   await trx('recordings').where({ id: recordingId }).update({
     status: 'ready',
@@ -202,7 +215,7 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     error_column: null,
     parameters: JSON.stringify(parameters),
     algorithm_version: algorithmVersion,
-    metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps }),
+    metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps, parameter_sources: out.parameters }),
     processed_at: trx.raw('NOW(3)'),
   });
 }

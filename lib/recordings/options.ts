@@ -16,8 +16,12 @@ export const recordingOptionsSchema = z.object({
   /** a built-in preset id, or a whole layout; null = the layout the file names in its `# layout:` line */
   layout: z.union([z.object({ preset: z.string().min(1) }), z.object({ custom: sensorLayoutSchema })]).nullable(),
   profile: importProfileSchema.transform((p) => p as ImportProfile).nullable(),
-  handedness: z.enum(['right', 'left']),
-  stanceWidthMm: z.number().positive(),
+  /** the uploader's explicit choice; null = the file's metadata decides, else the athlete's profile */
+  handedness: z.enum(['right', 'left']).nullable(),
+  stanceWidthMm: z.number().positive().nullable(),
+  /** the athlete's profile at upload time: used only where the file's metadata says nothing */
+  profileHandedness: z.enum(['right', 'left']).nullable().optional(),
+  profileStanceWidthMm: z.number().positive().nullable().optional(),
   /** null = the core's default cutoff */
   cutoffHz: z.number().positive().nullable(),
 });
@@ -36,11 +40,17 @@ export function resolveLayout(options: RecordingOptions, metadata: Record<string
   return layout;
 }
 
-export function analyzeOptionsOf(options: RecordingOptions): AnalyzeOptions {
+/**
+ * Parameter precedence: the explicit choice in the upload form > the file's own metadata > the athlete's profile >
+ * the core's defaults (lib/signal analyzeRecording applies the last three, so the file is never overridden silently).
+ */
+export function analyzeOptionsOf(options: RecordingOptions, promote: readonly number[] = []): AnalyzeOptions {
   return {
-    handedness: options.handedness,
-    stanceWidthMm: options.stanceWidthMm,
+    handedness: options.handedness ?? undefined,
+    stanceWidthMm: options.stanceWidthMm ?? undefined,
     cutoffHz: options.cutoffHz ?? undefined,
+    fallback: { handedness: options.profileHandedness ?? undefined, stanceWidthMm: options.profileStanceWidthMm ?? undefined },
+    ...(promote.length ? { promote } : {}),
   };
 }
 

@@ -21,6 +21,8 @@ export async function requestReprocess(recordingId: number, input: ReprocessInpu
       handedness: input.handedness ?? current.handedness,
       stanceWidthMm: input.stanceWidthMm ?? current.stanceWidthMm,
       cutoffHz: input.cutoffHz === undefined ? current.cutoffHz : input.cutoffHz,
+      profileHandedness: current.profileHandedness ?? null,
+      profileStanceWidthMm: current.profileStanceWidthMm ?? null,
     });
     await trx('recordings').where({ id: recordingId }).update({ options: JSON.stringify(next), status: 'received' });
     const waiting = await trx('processing_jobs').where({ recording_id: recordingId, state: 'queued' }).first('id');

@@ -29,8 +29,8 @@ function fieldError(field: string, message: string): ZodError {
   return new ZodError([{ code: 'custom', path: [field], message, input: undefined }]);
 }
 
-/** Options for processing: the form's values, the athlete's profile for what the form leaves out. */
-async function optionsFor(viewer: Viewer, fields: UploadFields): Promise<RecordingOptions> {
+/** Options for processing: the form's explicit values; the athlete's profile only where the file says nothing. */
+export async function optionsFor(viewer: Viewer, fields: UploadFields): Promise<RecordingOptions> {
   const athlete = await db('athletes').where({ id: fields.athleteId }).first('handedness', 'stance_width_mm');
   let profile = fields.profile ?? null;
   if (!profile && fields.profileId !== undefined) {
@@ -44,8 +44,10 @@ async function optionsFor(viewer: Viewer, fields: UploadFields): Promise<Recordi
   return {
     layout: fields.layout ?? null,
     profile,
-    handedness: fields.handedness ?? athlete.handedness,
-    stanceWidthMm: fields.stanceWidthMm ?? Number(athlete.stance_width_mm),
+    handedness: fields.handedness ?? null,
+    stanceWidthMm: fields.stanceWidthMm ?? null,
+    profileHandedness: athlete.handedness,
+    profileStanceWidthMm: Number(athlete.stance_width_mm),
     cutoffHz: fields.cutoffHz ?? null,
   };
 }

@@ -2,8 +2,8 @@ import 'server-only';
 import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
 import { jsonColumn, r1, r2, r3, toIsoDate } from '@/lib/db/values';
-import { EVENT_NAMES, type EventName } from '@/lib/signal';
-import type { RecordingStatus, RecordingView, SessionRecordings, SwingSummary } from '@/lib/contracts/recordings';
+import { EVENT_NAMES, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
+import type { CandidateView, PromotionView, RecordingStatus, RecordingView, SessionRecordings, SwingSummary } from '@/lib/contracts/recordings';
 import type { RecordingOptions } from './options';
 
 // Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
@@ -14,10 +14,38 @@ type SwingView = SwingSummary;
 type SessionRecordingsView = SessionRecordings;
 
 
-type SwingRow = { id: number; recording_id: number; swing_index: number; start_s: number; end_s: number; impact_source: 'marker' | 'detected'; tempo_ratio: number | null; hidden: boolean; stale: boolean };
+type SwingRow = {
+  id: number;
+  recording_id: number;
+  swing_index: number;
+  start_s: number;
+  end_s: number;
+  impact_source: 'marker' | 'detected';
+  tempo_ratio: number | null;
+  hidden: boolean;
+  stale: boolean;
+  partial: boolean;
+  forward_press_s: number | null;
+  forward_press_mm: number | null;
+  promoted: 'detected' | 'placed' | null;
+};
 
 async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
-  const swings: SwingRow[] = await query.select('s.id', 's.recording_id', 's.swing_index', 's.start_s', 's.end_s', 's.impact_source', 's.tempo_ratio', 's.hidden', 's.stale');
+  const swings: SwingRow[] = await query.select(
+    's.id',
+    's.recording_id',
+    's.swing_index',
+    's.start_s',
+    's.end_s',
+    's.impact_source',
+    's.tempo_ratio',
+    's.hidden',
+    's.stale',
+    's.partial',
+    's.forward_press_s',
+    's.forward_press_mm',
+    's.promoted',
+  );
   if (swings.length === 0) return [];
   const ids = swings.map((s) => s.id);
   const events = await db('swing_events').whereIn('swing_id', ids).select('swing_id', 'name', 'time_s', 'source', 'auto_time_s', 'misfit');
@@ -50,8 +78,17 @@ async function swingViews(query: Knex.QueryBuilder): Promise<SwingView[]> {
       leadPctAtImpact: r1(leadAtImpact.get(s.id)),
       hidden: Boolean(s.hidden),
       stale: Boolean(s.stale),
+      partial: Boolean(s.partial),
+      forwardPress: s.forward_press_s === null ? null : { timeS: r3(s.forward_press_s) as number, sizeMm: r1(s.forward_press_mm) as number },
+      promoted: s.promoted ?? null,
     };
   });
+}
+
+/** The candidates the last analysis rejected, in time order. */
+export async function candidateViews(recordingId: number): Promise<CandidateView[]> {
+  const rows = await db('recording_candidates').where({ recording_id: recordingId }).orderBy('time_s').select('time_s', 'reason');
+  return rows.map((c) => ({ timeS: r3(c.time_s) as number, reason: String(c.reason), reasonText: REJECT_REASONS[c.reason as RejectReason] ?? String(c.reason) }));
 }
 
 type RecordingRow = {
@@ -82,7 +119,7 @@ function requested(options: RecordingOptions): Record<string, unknown> {
   };
 }
 
-function toView(row: RecordingRow, swings: SwingView[]): RecordingView {
+function toView(row: RecordingRow, swings: SwingView[], candidates: CandidateView[] = [], promotions: PromotionView[] = []): RecordingView {
   const options = jsonColumn<RecordingOptions>(row.options)!;
   return {
     id: Number(row.id),
@@ -94,12 +131,15 @@ function toView(row: RecordingRow, swings: SwingView[]): RecordingView {
     status: row.status,
     error: row.status === 'failed' ? { message: row.error_message ?? 'processing failed', line: row.error_line, column: row.error_column } : null,
     parameters: jsonColumn<Record<string, unknown>>(row.parameters) ?? requested(options),
+    parameterSources: (jsonColumn<Record<string, unknown>>(row.metadata)?.parameter_sources as Record<string, unknown> | undefined) ?? null,
     options,
     algorithmVersion: row.algorithm_version,
     recording: jsonColumn<Record<string, unknown>>(row.metadata),
     createdAt: new Date(row.created_at).toISOString(),
     processedAt: row.processed_at ? new Date(row.processed_at).toISOString() : null,
     swings,
+    candidates,
+    promotions,
   };
 }
 
@@ -126,7 +166,14 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
   const row: RecordingRow | undefined = await db('recordings').where({ id }).first(RECORDING_COLUMNS);
   if (!row) return null;
   const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
-  return toView(row, swings);
+  const promotions = (await db('candidate_promotions').where({ recording_id: id }).orderBy('id').select('id', 'time_s', 'reason', 'user_id', 'at')).map((p) => ({
+    id: Number(p.id),
+    timeS: r3(p.time_s) as number,
+    reason: String(p.reason),
+    userId: p.user_id === null ? null : Number(p.user_id),
+    at: new Date(p.at).toISOString(),
+  }));
+  return toView(row, swings, await candidateViews(id), promotions);
 }
 
 export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
@@ -145,7 +192,7 @@ export async function getSessionRecordingsView(sessionId: number): Promise<Sessi
       location: session.location,
     },
     recordings: rows.map((row) => {
-      const { swings: _unused, ...rest } = toView(row, []);
+      const { swings: _unused, candidates: _none, promotions: _nor, ...rest } = toView(row, []);
       return { ...rest, swingCount: swings.filter((s) => s.recordingId === Number(row.id) && !s.stale).length };
     }),
     swings,

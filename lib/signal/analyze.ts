@@ -5,7 +5,8 @@ import { detectionParams, type DetectionParams } from './events';
 import { atEvents, phaseRows, tempoRatio } from './phases';
 import { DEFAULT_MAX_GAP_S, regularise } from './regularise';
 import { sensorForceWindows, type SensorWindows } from './sensor-forces';
-import { findSwings, type SwingCandidate } from './swings';
+import { nearestIndex } from './nearest';
+import { findSwings, promoteSwing, type DetectedSwing, type FindSwingsOptions, type SwingCandidate } from './swings';
 import {
   EVENT_NAMES,
   type AnalysisResult,
@@ -18,7 +19,7 @@ import {
 } from './types';
 
 /** Changes whenever a default or a definition changes, so stored results can be told apart. */
-export const ALGORITHM_VERSION = 'stanceline-signal/1.0.0';
+export const ALGORITHM_VERSION = 'stanceline-signal/2.0.0';
 
 /** Used when neither the options nor the file say (common practice: a shoulder-width stance, right-handed). */
 export const ANALYSIS_FALLBACKS = { handedness: 'right' as Handedness, stanceWidthMm: 400 };
@@ -30,6 +31,19 @@ export interface AnalyzeOptions {
   sampleRateHz?: number;
   maxGapS?: number;
   detection?: Partial<DetectionParams>;
+  /** used only where the file's own metadata says nothing (e.g. the athlete's profile): options > file > these >
+   *  ANALYSIS_FALLBACKS; the file is never silently overridden */
+  fallback?: { handedness?: Handedness; stanceWidthMm?: number };
+  /** times (s) where a coach asked for a swing the finder rejected (promoteSwing) */
+  promote?: readonly number[];
+}
+
+export type ParameterSource = 'option' | 'file' | 'fallback' | 'default';
+
+/** Where each of the golfer's parameters came from, and what the file itself said. */
+export interface ParameterSources {
+  handedness: { used: Handedness; source: ParameterSource; file: Handedness | null; fallback: Handedness | null };
+  stanceWidthMm: { used: number; source: ParameterSource; file: number | null; fallback: number | null };
 }
 
 export interface AnalysisOutput {
@@ -39,6 +53,7 @@ export interface AnalysisOutput {
   candidates: SwingCandidate[];
   /** per-sensor filtered forces over each swing's window [start_s, end_s] (same order as result.swings) */
   sensorWindows: SensorWindows;
+  parameters: ParameterSources;
 }
 
 function metaNumber(meta: Record<string, string>, key: string): number | undefined {
@@ -51,9 +66,12 @@ function metaNumber(meta: Record<string, string>, key: string): number | undefin
 export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: AnalyzeOptions = {}): AnalysisOutput {
   const meta = raw.metadata;
   const metaHand = meta.handedness === 'left' || meta.handedness === 'right' ? meta.handedness : undefined;
-  const handedness = opts.handedness ?? metaHand ?? ANALYSIS_FALLBACKS.handedness;
+  const metaWidth = metaNumber(meta, 'stance_width_mm');
+  const pick = <T>(option: T | undefined, file: T | undefined, fallback: T | undefined, def: T): [T, ParameterSource] =>
+    option !== undefined ? [option, 'option'] : file !== undefined ? [file, 'file'] : fallback !== undefined ? [fallback, 'fallback'] : [def, 'default'];
+  const [handedness, handSource] = pick(opts.handedness, metaHand, opts.fallback?.handedness, ANALYSIS_FALLBACKS.handedness);
   if (handedness !== 'right' && handedness !== 'left') throw new RangeError(`handedness must be right or left, got ${handedness}`);
-  const stanceWidthMm = opts.stanceWidthMm ?? metaNumber(meta, 'stance_width_mm') ?? ANALYSIS_FALLBACKS.stanceWidthMm;
+  const [stanceWidthMm, widthSource] = pick(opts.stanceWidthMm, metaWidth, opts.fallback?.stanceWidthMm, ANALYSIS_FALLBACKS.stanceWidthMm);
   if (!(stanceWidthMm > 0 && Number.isFinite(stanceWidthMm))) throw new RangeError(`stanceWidthMm must be a positive number, got ${stanceWidthMm}`);
   const maxGapS = opts.maxGapS ?? DEFAULT_MAX_GAP_S;
   const cutoffHz = opts.cutoffHz ?? DEFAULT_DERIVE.cutoffHz;
@@ -70,7 +88,9 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     derivativePolyOrder: DEFAULT_DERIVE.derivativePolyOrder,
   });
   detectionParams(stanceWidthMm, opts.detection); // validates overrides before the search
-  const { swings, candidates } = findSwings(series, { stanceWidthMm, impact: u.impact, params: opts.detection });
+  const finderOpts = { stanceWidthMm, impact: u.impact, params: opts.detection };
+  const found = findSwings(series, finderOpts);
+  const { swings, candidates } = withPromoted(series, found, opts.promote ?? [], finderOpts);
 
   const t = series.time;
   const results: SwingResult[] = swings.map((sw, k) => {
@@ -85,6 +105,9 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
       at_events: atEvents(series, sw.events),
       phases: phaseRows(series, sw.events),
       tempo_ratio: tempoRatio(series, sw.events),
+      partial: sw.partial,
+      forward_press: sw.forwardPress ? { time_s: t[sw.forwardPress.index], size_mm: sw.forwardPress.sizeMm } : null,
+      ...(sw.promoted ? { promoted: sw.promoted } : {}),
     };
   });
 
@@ -113,118 +136,42 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     gaps: u.gaps,
     swings: results,
   };
-  return { result, series, candidates, sensorWindows };
+  const parameters: ParameterSources = {
+    handedness: { used: handedness, source: handSource, file: metaHand ?? null, fallback: opts.fallback?.handedness ?? null },
+    stanceWidthMm: { used: stanceWidthMm, source: widthSource, file: metaWidth ?? null, fallback: opts.fallback?.stanceWidthMm ?? null },
+  };
+  return { result, series, candidates, sensorWindows, parameters };
 }
 
-const round = (v: number, d: number) => {
-  if (!Number.isFinite(v)) return null;
-  const p = 10 ** d;
-  const r = Math.round(v * p) / p;
-  return r === 0 ? 0 : r; // no -0 in JSON
-};
-
-/** A type with every number also allowed to be null (JSON has no NaN). */
-export type JsonNumbers<T> = T extends number
-  ? number | null
-  : T extends (infer U)[]
-    ? JsonNumbers<U>[]
-    : T extends object
-      ? { [K in keyof T]: JsonNumbers<T[K]> }
-      : T;
-export type AnalysisJson = JsonNumbers<AnalysisResult>;
+type PromotedSwing = DetectedSwing & { promoted?: 'detected' | 'placed' };
 
 /**
- * The result as written to JSON: seconds to 3 decimals, % and mm to 1, mm/s to 0, tempo to 2; NaN -> null.
- * Everything else unchanged.
+ * The finder's swings plus the ones a coach asked for: each promoted time not already inside a found swing becomes a
+ * swing (promoteSwing: relaxed detection, else placed events), unless it would overlap one; its candidate is then
+ * marked accepted. Swings come back in time order.
  */
-export function roundAnalysis(r: AnalysisResult): AnalysisJson {
-  return {
-    recording: { ...r.recording, duration_s: round(r.recording.duration_s, 3), sample_rate_hz: round(r.recording.sample_rate_hz, 6) },
-    processing: { ...r.processing, sample_rate_hz: round(r.processing.sample_rate_hz, 6) },
-    gaps: r.gaps.map((g) => ({ start_s: round(g.start_s, 3), end_s: round(g.end_s, 3), filled: g.filled })),
-    swings: r.swings.map((s) => ({
-      index: s.index,
-      start_s: round(s.start_s, 3),
-      end_s: round(s.end_s, 3),
-      events: Object.fromEntries(EVENT_NAMES.map((e) => [e, round(s.events[e], 3)])) as Record<EventName, number | null>,
-      impact_source: s.impact_source,
-      at_events: Object.fromEntries(
-        EVENT_NAMES.map((e) => {
-          const a = s.at_events[e];
-          return [
-            e,
-            {
-              lead_pct: round(a.lead_pct, 1),
-              lead_heel_pct: round(a.lead_heel_pct, 1),
-              trail_heel_pct: round(a.trail_heel_pct, 1),
-              cop_x_mm: round(a.cop_x_mm, 1),
-              cop_y_mm: round(a.cop_y_mm, 1),
-            },
-          ];
-        }),
-      ) as AnalysisJson['swings'][number]['at_events'],
-      phases: s.phases.map((p) => ({
-        name: p.name,
-        from: p.from,
-        to: p.to,
-        duration_s: round(p.duration_s, 3),
-        cop_path_mm: round(p.cop_path_mm, 1),
-        peak_cop_speed_mm_s: round(p.peak_cop_speed_mm_s, 0),
-        mean_lead_pct: round(p.mean_lead_pct, 1),
-      })),
-      tempo_ratio: round(s.tempo_ratio, 2),
-    })),
-  };
-}
-
-/** Columns of the --series CSV: the README's required ones first, then extras. */
-export const SERIES_COLUMNS = [
-  'time_s',
-  'left_n',
-  'right_n',
-  'lead_pct',
-  'cop_x_mm',
-  'cop_y_mm',
-  'cop_speed_mm_s',
-  'total_n',
-  'lead_heel_pct',
-  'trail_heel_pct',
-  'cop_vx_mm_s',
-  'cop_vy_mm_s',
-] as const;
-
-const cell = (v: number, d: number) => (Number.isFinite(v) ? (Math.round(v * 10 ** d) / 10 ** d).toString() : '');
-
-/** The per-sample series as CSV text, in pieces of `rows` rows (the first piece starts with the header). */
-export function* seriesCsvChunks(s: DerivedSeries, rows = 5000): Generator<string> {
-  if (!(Number.isInteger(rows) && rows > 0)) throw new RangeError(`rows must be a positive integer, got ${rows}`);
-  const cols: [Float64Array, number][] = [
-    [s.time, 4],
-    [s.leftN, 2],
-    [s.rightN, 2],
-    [s.leadPct, 2],
-    [s.copX, 2],
-    [s.copY, 2],
-    [s.copSpeed, 1],
-    [s.totalN, 2],
-    [s.leadHeelPct, 2],
-    [s.trailHeelPct, 2],
-    [s.copVx, 1],
-    [s.copVy, 1],
-  ];
-  let out = `${SERIES_COLUMNS.join(',')}\n`;
-  const n = s.time.length;
-  for (let i = 0; i < n; i++) {
-    out += cols.map(([a, d]) => cell(a[i], d)).join(',') + '\n';
-    if ((i + 1) % rows === 0) {
-      yield out;
-      out = '';
-    }
+function withPromoted(
+  series: DerivedSeries,
+  found: { swings: DetectedSwing[]; candidates: SwingCandidate[] },
+  promote: readonly number[],
+  opts: FindSwingsOptions,
+): { swings: PromotedSwing[]; candidates: SwingCandidate[] } {
+  if (promote.length === 0) return found;
+  const swings: PromotedSwing[] = [...found.swings];
+  const candidates = found.candidates.map((c) => ({ ...c }));
+  const t = series.time;
+  for (const timeS of promote) {
+    if (!Number.isFinite(timeS)) throw new RangeError(`promoted time must be a finite number, got ${timeS}`);
+    if (timeS < t[0] || timeS > t[t.length - 1]) continue; // outside this recording's time axis
+    const at = nearestIndex(t, timeS);
+    if (swings.some((w) => at >= w.events.address && at <= w.events.finish)) continue;
+    const p = promoteSwing(series, at, opts);
+    if (swings.some((w) => p.events.address <= w.events.finish && p.events.finish >= w.events.address)) continue;
+    swings.push({ ...p, promoted: p.placed ? 'placed' : 'detected' });
+    for (const c of candidates) if (!c.accepted && c.peak >= p.events.top && c.peak <= p.events.finish) Object.assign(c, { accepted: true, reason: null });
   }
-  if (out) yield out;
+  swings.sort((a, b) => a.events.address - b.events.address);
+  return { swings, candidates };
 }
 
-/** Empty cells stand for NaN (a share with no load under it). */
-export function seriesToCsv(s: DerivedSeries): string {
-  return Array.from(seriesCsvChunks(s)).join('');
-}
+export { roundAnalysis, seriesCsvChunks, seriesToCsv, SERIES_COLUMNS, type AnalysisJson, type JsonNumbers } from './format';

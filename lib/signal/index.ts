@@ -16,4 +16,4 @@ export * from './registration';
 export * from './bands';
 export * from './similarity';
 export * from './analyze';
-export * from './synthetic';
+export * from './nearest';

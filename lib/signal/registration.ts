@@ -2,6 +2,7 @@
 // that sends each event time to its target position, so curves from different swings line up event by event.
 // Between events k and k+1: h(t) = p_k + (t - t_k) (p_{k+1} - p_k) / (t_{k+1} - t_k).
 // Outside the first and last events the end segments are extended linearly.
+import { segmentIndex } from './nearest';
 
 function assertIncreasing(name: string, v: ArrayLike<number>): void {
   for (let i = 0; i < v.length; i++) {
@@ -11,16 +12,9 @@ function assertIncreasing(name: string, v: ArrayLike<number>): void {
 }
 
 function piecewise(xs: ArrayLike<number>, ys: ArrayLike<number>): (x: number) => number {
-  const n = xs.length;
   return (x: number) => {
     // segment k such that xs[k] <= x < xs[k+1], clamped to the end segments for extrapolation
-    let lo = 0;
-    let hi = n - 2;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (xs[mid] <= x) lo = mid;
-      else hi = mid - 1;
-    }
+    const lo = segmentIndex(xs, x);
     return ys[lo] + ((x - xs[lo]) * (ys[lo + 1] - ys[lo])) / (xs[lo + 1] - xs[lo]);
   };
 }
@@ -50,14 +44,9 @@ export function inverseLandmarkWarp(eventTimes: ArrayLike<number>, targetPositio
 export function interpolateAt(time: ArrayLike<number>, values: ArrayLike<number>, t: number): number {
   const n = time.length;
   if (n === 0 || !(t >= time[0]) || !(t <= time[n - 1])) return NaN;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (time[mid] <= t) lo = mid;
-    else hi = mid;
-  }
-  if (lo === hi) return values[lo];
+  if (n === 1) return values[0];
+  const lo = segmentIndex(time, t);
+  const hi = lo + 1;
   const f = (t - time[lo]) / (time[hi] - time[lo]);
   return values[lo] + f * (values[hi] - values[lo]);
 }

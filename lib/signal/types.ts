@@ -159,6 +159,12 @@ export interface SwingResult {
   phases: PhaseRow[];
   /** backswing duration / (transition + downswing) duration, i.e. (top-address)/(impact-top) */
   tempo_ratio: number;
+  /** a swing with the shape of a full one but clearly less travel toward the lead foot (a pitch, a half swing) */
+  partial: boolean;
+  /** a small shift toward the lead foot right before the takeaway: its start (s) and lead-ward COP X travel (mm) */
+  forward_press: { time_s: number; size_mm: number } | null;
+  /** present when a coach asked for this swing: 'detected' (relaxed checks) or 'placed' (events to adjust) */
+  promoted?: 'detected' | 'placed';
 }
 
 export interface AnalysisResult {

@@ -3,6 +3,7 @@
 // Derived traces keep full double precision (JSON round-trips doubles exactly), so re-valuing an event at its
 // automatic sample gives back exactly the analyzer's numbers. NaN (no load under a share or COP) is stored as null.
 import type { DerivedSeries } from '@/lib/signal';
+import { nearestIndex } from '@/lib/signal/nearest';
 
 export const STORED_TRACES = ['leadPct', 'leadHeelPct', 'trailHeelPct', 'copX', 'copY', 'copVx', 'copVy', 'copSpeed', 'totalN'] as const;
 export type StoredTrace = (typeof STORED_TRACES)[number];
@@ -72,15 +73,8 @@ export function windowAsDerived(stored: StoredSwingSeries): DerivedSeries {
 
 /** Index of the sample nearest to `t` in a sorted time array (ties go to the earlier sample). */
 export function nearestSample(time: ArrayLike<number>, t: number): number {
-  let lo = 0;
-  let hi = time.length - 1;
-  if (hi < 0) throw new RangeError('empty time axis');
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (time[mid] <= t) lo = mid;
-    else hi = mid;
-  }
-  return Math.abs(time[hi] - t) < Math.abs(time[lo] - t) ? hi : lo;
+  if (time.length === 0) throw new RangeError('empty time axis');
+  return nearestIndex(time, t);
 }
 
 export function parseStoredSeries(data: unknown): StoredSwingSeries {

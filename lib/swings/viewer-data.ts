@@ -1,5 +1,5 @@
 import 'server-only';
-import type { EventName } from '@/lib/signal';
+import { ANALYSIS_FALLBACKS, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { SwingView } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
@@ -44,10 +44,15 @@ export function sensorFramesView(stored: StoredSwingSeries | null, events: { nam
 
 export async function overviewView(recordingId: number): Promise<SwingView['overview']> {
   const row = await db('recording_series').where({ recording_id: recordingId }).first('bucket_s', 'data');
-  if (!row) return { time: [], leadPct: [], copX: [] };
+  const candidates = (await db('recording_candidates').where({ recording_id: recordingId }).orderBy('time_s').select('time_s', 'reason')).map((c) => ({
+    timeS: Math.round(Number(c.time_s) * 1000) / 1000,
+    reason: String(c.reason),
+    reasonText: REJECT_REASONS[c.reason as RejectReason] ?? String(c.reason),
+  }));
+  if (!row) return { time: [], leadPct: [], copX: [], candidates };
   const data = jsonColumn<Pick<DisplaySeries, 't' | 'traces'>>(row.data)!;
   const o = overviewOf({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, ['lead_pct', 'cop_x_mm']);
-  return { time: o.time, leadPct: o.traces.lead_pct, copX: o.traces.cop_x_mm };
+  return { time: o.time, leadPct: o.traces.lead_pct, copX: o.traces.cop_x_mm, candidates };
 }
 
 export async function siblingsView(swingId: number, recordingId: number, swingIndex: number, athleteId: number): Promise<SwingView['siblings']> {
@@ -80,8 +85,8 @@ export async function layoutView(recordingId: number): Promise<Pick<SwingView, '
   const meta = jsonColumn<{ metadata?: Record<string, string> }>(row.metadata)?.metadata ?? {};
   return {
     layout: resolveLayout(options, meta),
-    handedness: params.handedness ?? options.handedness,
-    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm),
+    handedness: params.handedness ?? options.handedness ?? options.profileHandedness ?? ANALYSIS_FALLBACKS.handedness,
+    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm ?? options.profileStanceWidthMm ?? ANALYSIS_FALLBACKS.stanceWidthMm),
   };
 }
 

@@ -14,6 +14,8 @@ export interface SwingFacts {
   sessionDate: string;
   context: string;
   hidden: boolean;
+  /** a partial swing (pitch, half swing): compare, bands and progress leave these out by default */
+  partial: boolean;
   clubGroup: ClubGroup;
   club: string | null;
   tempoRatio: number | null;
@@ -38,7 +40,7 @@ export async function swingFacts(where: { swingIds?: number[]; athleteId?: numbe
     .join('practice_sessions as p', 'p.id', 'r.session_id')
     .join('athletes as a', 'a.id', 'r.athlete_id')
     .leftJoin('swing_labels as l', 'l.swing_id', 's.id')
-    .select('s.id', 's.hidden', 's.tempo_ratio', 'r.athlete_id', 'r.parameters', 'r.options', 'a.stance_width_mm', 'p.id as session_id', 'p.session_date', 'p.context', 'l.club')
+    .select('s.id', 's.hidden', 's.partial', 's.tempo_ratio', 'r.athlete_id', 'r.parameters', 'r.options', 'a.stance_width_mm', 'p.id as session_id', 'p.session_date', 'p.context', 'l.club')
     .orderBy('s.id');
   if (where.swingIds) q.whereIn('s.id', where.swingIds);
   if (where.athleteId !== undefined) q.where('r.athlete_id', where.athleteId);
@@ -59,6 +61,7 @@ export async function swingFacts(where: { swingIds?: number[]; athleteId?: numbe
       sessionDate: toIsoDate(r.session_date) ?? '',
       context: r.context,
       hidden: Boolean(r.hidden),
+      partial: Boolean(r.partial),
       club: r.club ?? null,
       clubGroup: clubGroupOf(r.club),
       tempoRatio: num(r.tempo_ratio),

@@ -28,11 +28,16 @@ const APP_TABLES = [
   'bands',
   'drills',
   'drill_assignments',
+  // the swing finder's rejected candidates and the coach's promotions
+  'recording_candidates',
+  'candidate_promotions',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
 const ALTERATIONS: [string, string, string][] = [
-  // issue 11: users.session_version, checked against the token's version on every request
+  // the swing finder's per-swing fields (partial, forward press, promoted); the first column stands for all four
+  ['add_finder_fields_to_swings', 'swings', 'partial'],
+  // users.session_version, checked against the token's version on every request
   ['add_users_session_version', 'users', 'session_version'],
 ];
 
@@ -45,7 +50,7 @@ afterAll(async () => {
 });
 
 describe('migrations', () => {
-  it('are timestamped .ts files, one per table, in schema order', async () => {
+  it('are timestamped .ts files, one per table (or one change to an earlier table), in schema order', async () => {
     const names = await new TsMigrationSource().getMigrations();
     expect(names).toHaveLength(APP_TABLES.length + ALTERATIONS.length);
     for (const name of names) expect(name).toMatch(/^\d{14}_[a-z0-9_]+\.ts$/);
@@ -67,17 +72,18 @@ describe('migrations', () => {
     expect(await listTables(db)).toEqual(afterFirst);
   });
 
-  it('each down() removes exactly its own table, newest first', async () => {
+  it('each down() removes exactly its own table (or undoes its own change), newest first', async () => {
     const { db } = scratch;
     await db.migrate.latest();
-    for (const [, table, column] of [...ALTERATIONS].reverse()) {
-      expect(await db.schema.hasColumn(table, column)).toBe(true);
+    const names = await new TsMigrationSource().getMigrations();
+    let remaining = APP_TABLES.length;
+    for (const name of [...names].reverse()) {
+      const alteration = ALTERATIONS.find(([part]) => name.includes(part));
+      if (alteration) expect(await db.schema.hasColumn(alteration[1], alteration[2])).toBe(true);
       await db.migrate.down();
-      expect(await db.schema.hasColumn(table, column)).toBe(false);
-    }
-    for (let remaining = APP_TABLES.length; remaining > 0; remaining -= 1) {
-      await db.migrate.down();
-      expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining - 1), ...KNEX_TABLES].sort());
+      if (alteration) expect(await db.schema.hasColumn(alteration[1], alteration[2])).toBe(false);
+      else remaining -= 1;
+      expect(await listTables(db)).toEqual([...APP_TABLES.slice(0, remaining), ...KNEX_TABLES].sort());
     }
     await db.migrate.latest();
     expect(await listTables(db)).toHaveLength(APP_TABLES.length + KNEX_TABLES.length);
@@ -98,6 +104,10 @@ describe('migrations', () => {
     const column = (t: string, c: string) => columns.find((row) => row.t === t && row.c === c);
     expect(column('users', 'role')?.type).toBe("enum('admin','coach','student','researcher')");
     expect(column('users', 'email')?.type).toBe('varchar(254)');
+    // issue 9: what the finder says about a swing
+    expect(column('swings', 'partial')?.type).toBe('tinyint(1)');
+    expect(column('swings', 'promoted')?.type).toBe("enum('detected','placed')");
+    expect(column('swings', 'forward_press_mm')?.nullable).toBe('YES');
     expect(column('athletes', 'stance_width_mm')).toMatchObject({ type: 'smallint(5) unsigned', nullable: 'NO', def: '400' });
     expect(column('athletes', 'handedness')).toMatchObject({ type: "enum('right','left')", def: "'right'" });
     expect(column('athletes', 'user_id')?.nullable).toBe('YES');

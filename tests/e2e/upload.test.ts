@@ -113,9 +113,10 @@ describe('uploading recordings in the browser', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(`${baseUrl}/upload?athlete=${athlete.id}`);
     await page.getByRole('heading', { name: 'Upload recordings' }).waitFor();
-    // Handedness and stance width default from the athlete's profile; the cutoff from the core's default.
-    expect(await page.getByLabel('Right-handed').isChecked()).toBe(athlete.handedness === 'right');
-    expect(await page.getByLabel('Stance width (mm)').inputValue()).toBe(String(athlete.stanceWidthMm));
+    // Handedness and stance width are left to the file (else the athlete's profile) unless chosen here; the cutoff
+    // defaults to the core's.
+    expect(await page.getByLabel(/As the file says/).isChecked()).toBe(true);
+    expect(await page.getByLabel('Stance width (mm)').inputValue()).toBe('');
     expect(await page.getByLabel('Filter cutoff (Hz)').inputValue()).toBe('20');
     expect(await page.getByLabel('Add the files to').inputValue()).toBe(''); // a new session
   });

@@ -5,7 +5,7 @@ import { createLocalStore } from '@/lib/storage';
 import { resetDemo, tempDir, testDb } from './support/recordings';
 
 // The demo's recordings go through the real pipeline (store, queue, processing) and end ready with the swings the
-// synthetic generator put in them (its truth; lib/signal/synthetic.ts), so the demo coach sees sessions with swings.
+// synthetic generator put in them (its truth; lib/signal/synthetic), so the demo coach sees sessions with swings.
 
 let db: Knex;
 beforeAll(async () => {

@@ -10,6 +10,7 @@ const swing = (id: number, sessionDate: string, impactLead: number | null, hidde
   sessionDate,
   context: 'practice',
   hidden,
+  partial: false,
   club: null,
   clubGroup: 'irons',
   tempoRatio: 3,

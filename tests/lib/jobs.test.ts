@@ -47,7 +47,7 @@ describe('processing a stored recording', () => {
       swings: { index: number; events: Record<string, number>; impact_source: string; phases: { name: string; duration_s: number }[] }[];
       processing: Record<string, unknown>;
     };
-    expect(expected.swings.length).toBe(3); // the generator's three swings (lib/signal/synthetic.ts truth)
+    expect(expected.swings.length).toBe(3); // the generator's three swings (lib/signal/synthetic truth)
     const row = await recording(recordingId);
     expect(row.status).toBe('ready');
     expect(row.error_message).toBeNull();

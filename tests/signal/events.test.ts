@@ -1,19 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { DETECTION_DEFAULTS, detectionParams, REJECT_REASONS } from '@/lib/signal/events';
 import { DISTRACTORS } from '@/lib/signal/synthetic';
-import { EVENT_NAMES } from '@/lib/signal/types';
+import { EVENT_NAMES, type EventName } from '@/lib/signal/types';
 import { analyze, session, withRaw } from './helpers';
 
-// Event times are checked against the generator's truth: the event definitions applied to the noise-free COP
-// (synthetic.ts). The detector sees sensor noise, the CSV round trip, the 20 Hz zero-lag filter and the 0.11 s
-// Savitzky-Golay derivative. Tolerances (ms), from those smoothing steps:
-// - address 80: the COP leaves the quiet threshold slowly at takeaway, so noise of a few mm/s moves the crossing;
-// - top 45: at the turn the lead-ward acceleration is several times the trail-ward one, and the smoothed velocity
-//   crosses zero 10-40 ms before the most trail-ward point of the clean COP (an expected bias of the smoothing);
-// - transition 30, detected impact 20: half-peak points on the steep flanks of the lead-ward velocity;
-// - impact with a marker: exact (the marker sample);
-// - finish 150: the COP settles slowly, so its threshold crossing is the least sharp.
-const TOL = { address: 0.08, top: 0.045, transition: 0.03, impact: 0.02, finish: 0.15 };
+// Event times are checked against the generator's truth: the times it builds each move from (lib/signal/synthetic:
+// address = start of the takeaway, top = the turn, transition / impact = top + D/6 and top + 5D/6 of the eased
+// downswing, finish = end of the follow-through). The detector sees sensor noise, the CSV round trip, the 20 Hz
+// zero-lag filter and the 0.11 s Savitzky-Golay derivative. Tolerances (s) are the product targets for address, top
+// and finish (issue "Every swing": 100 / 20 / 250 ms for >= 95 % of swings; every swing here must be within 1.5x),
+// and for transition and detected impact the half-peak points' smoothing (common practice: a few samples);
+// impact with a marker is exact (the marker sample).
+const TOL = { address: 0.1, top: 0.02, transition: 0.03, impact: 0.02, finish: 0.25 };
 
 const matrix = [100, 200].flatMap((fs) =>
   (['N', 'kPa'] as const).flatMap((units) =>
@@ -24,6 +22,7 @@ const matrix = [100, 200].flatMap((fs) =>
 );
 
 describe('swing events on synthetic sessions with distractors between the swings', () => {
+  const errors: { e: EventName; err: number }[] = [];
   matrix.forEach(({ fs, units, handedness, withMarker }, k) => {
     it(`${fs} Hz, ${units}, ${handedness}-handed, ${withMarker ? 'with' : 'without'} marker`, () => {
       const { s, raw } = session({
@@ -43,12 +42,25 @@ describe('swing events on synthetic sessions with distractors between the swings
       result.swings.forEach((sw, i) => {
         const truth = s.truth.swings[i].events;
         expect(sw.impact_source).toBe(withMarker ? 'marker' : 'detected');
+        expect(sw.partial).toBe(false);
         for (const e of EVENT_NAMES) {
           if (e === 'impact' && withMarker) expect(sw.events.impact).toBeCloseTo(truth.impact, 9);
-          else expect(Math.abs(sw.events[e] - truth[e]), `${e} of swing ${i + 1}`).toBeLessThanOrEqual(TOL[e] + 1e-9);
+          else {
+            const err = Math.abs(sw.events[e] - truth[e]);
+            errors.push({ e, err });
+            expect(err, `${e} of swing ${i + 1}`).toBeLessThanOrEqual(1.5 * TOL[e] + 1e-9);
+          }
         }
       });
     });
+  });
+
+  it('puts >= 95 % of all events of the sessions above within the tolerances', () => {
+    for (const e of EVENT_NAMES) {
+      const mine = errors.filter((x) => x.e === e);
+      if (mine.length === 0) continue;
+      expect(mine.filter((x) => x.err <= TOL[e] + 1e-9).length / mine.length, e).toBeGreaterThanOrEqual(0.95);
+    }
   });
 
   it.each(DISTRACTORS.map((d) => [d]))('finds no swing in a session of %s alone', (d) => {
@@ -59,8 +71,9 @@ describe('swing events on synthetic sessions with distractors between the swings
       const { result, candidates } = analyze(raw, s);
       expect(result.swings).toHaveLength(0);
       for (const c of candidates) expect(REJECT_REASONS[c.reason!]).toBeTruthy(); // every rejection says why
-      // walking has single support (one foot in the air); waggles never reach the downswing speed
-      if (d === 'walk') expect(candidates.some((c) => c.reason === 'foot-lifted')).toBe(true);
+      // walking has no sustained trail-ward move before its lead-ward steps, and single support (a foot in the air);
+      // waggles never reach the candidate speed
+      if (d === 'walk') expect(candidates.length > 0 && candidates.every((c) => c.reason === 'foot-lifted' || c.reason === 'no-backswing')).toBe(true);
       if (d === 'waggle') expect(candidates).toHaveLength(0);
     }
   });
@@ -82,7 +95,8 @@ describe('impact from the marker column', () => {
     const impact = Uint8Array.from(raw.impact!);
     const row = markerRows()[0];
     impact[row] = 0;
-    const topRow = Math.round(s.truth.swings[0].events.top * 100);
+    const { result: found } = analyze(raw, s);
+    const topRow = Math.round(found.swings[0].events.top * 100);
     impact[topRow + 1] = 1; // right after the top, before the lead-ward move reaches half speed
     const { result, candidates } = analyze(withRaw(raw, { impact }), s);
     expect(result.swings).toHaveLength(2);

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { findSwings } from '@/lib/signal/swings';
+import { findSwings, promoteSwing } from '@/lib/signal/swings';
 import { EVENT_NAMES, type RawRecording } from '@/lib/signal/types';
 import { analyze, session, withRaw } from './helpers';
 
@@ -112,5 +112,49 @@ describe('findSwings(series, opts)', () => {
     const { series } = analyze(raw, s);
     expect(() => findSwings(series, { stanceWidthMm: 400, impact: new Uint8Array(3) })).toThrow(RangeError);
     expect(() => findSwings(series, { stanceWidthMm: -1 })).toThrow(RangeError);
+  });
+});
+
+describe('promoteSwing(series, at, opts)', () => {
+  it('detects a swing the strict checks reject (relaxed checks), with events near the generator truth', () => {
+    const { s, raw } = session({ seed: 14, swings: 2 });
+    const { series } = analyze(raw, s);
+    // an impossible still address (10 s) makes the finder reject both swings
+    const strict = findSwings(series, { stanceWidthMm: 400, params: { quietMinS: 10 } });
+    expect(strict.swings).toHaveLength(0);
+    const rejected = strict.candidates.filter((c) => c.reason === 'no-quiet-address');
+    expect(rejected).toHaveLength(2);
+    rejected.forEach((c, i) => {
+      const p = promoteSwing(series, c.peak, { stanceWidthMm: 400, params: { quietMinS: 10 } });
+      expect(p.placed).toBe(false);
+      const truth = s.truth.swings[i].events;
+      // issue targets: address within 100 ms, top within 20 ms, finish within 250 ms (generator truth)
+      expect(Math.abs(series.time[p.events.address] - truth.address)).toBeLessThanOrEqual(0.1);
+      expect(Math.abs(series.time[p.events.top] - truth.top)).toBeLessThanOrEqual(0.02);
+      expect(Math.abs(series.time[p.events.finish] - truth.finish)).toBeLessThanOrEqual(0.25);
+    });
+  });
+
+  it('places ordered events for the coach to adjust where even relaxed detection fails (walking)', () => {
+    const { s, raw } = session({ seed: 15, swings: 0, distractors: ['walk'], durationS: 20 });
+    const { series, candidates } = analyze(raw, s);
+    const walk = candidates.find((c) => !c.accepted)!;
+    expect(walk).toBeDefined();
+    const p = promoteSwing(series, walk.peak, { stanceWidthMm: 400 });
+    expect(p.placed).toBe(true);
+    const e = p.events;
+    expect(e.address < e.top && e.top < e.transition && e.transition < e.impact && e.impact < e.finish).toBe(true);
+    expect(() => promoteSwing(series, -1, { stanceWidthMm: 400 })).toThrow(RangeError);
+  });
+
+  it('a promoted time in analyzeRecording adds the swing and marks it promoted', () => {
+    const { s, raw } = session({ seed: 15, swings: 1, distractors: ['walk'] });
+    const base = analyze(raw, s);
+    const walk = base.candidates.find((c) => !c.accepted)!;
+    const out = analyze(raw, s, { promote: [base.series.time[walk.peak]] });
+    expect(out.result.swings).toHaveLength(base.result.swings.length + 1);
+    expect(out.result.swings.filter((w) => w.promoted)).toHaveLength(1);
+    expect(out.result.swings.map((w) => w.index)).toEqual(out.result.swings.map((_, i) => i + 1));
+    expect(analyze(raw, s, { promote: [base.result.swings[0].events.top] }).result.swings).toHaveLength(base.result.swings.length); // already a swing
   });
 });

@@ -1,20 +1,10 @@
-// Nearest sample to a time on a strictly increasing time axis (binary search; ties go to the earlier sample).
+// Nearest sample to a time on a strictly increasing time axis (lib/signal/nearest.ts: d3's bisector; ties go to
+// the earlier sample).
+import { nearestIndex as nearestOnAxis } from '@/lib/signal/nearest';
 import type { NumArray } from './types';
 
 export function nearestIndex(time: NumArray, t: number): number {
-  const n = time.length;
-  if (n === 0) throw new RangeError('nearestIndex needs at least one sample');
-  if (!Number.isFinite(t)) throw new RangeError(`time must be a finite number, got ${t}`);
-  if (t <= time[0]) return 0;
-  if (t >= time[n - 1]) return n - 1;
-  let lo = 0;
-  let hi = n - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (time[mid] <= t) lo = mid;
-    else hi = mid;
-  }
-  return t - time[lo] <= time[hi] - t ? lo : hi;
+  return nearestOnAxis(time, t);
 }
 
 /** The value at the sample nearest to t (NaN stays NaN: a missing value is not filled for display). */

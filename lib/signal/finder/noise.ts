@@ -1,0 +1,40 @@
+// The recording's own quiet-stance noise floor. A still golfer's COP speed is sensor noise plus postural sway; its
+// level depends on the insoles, the body weight and the sample rate. The floor is a low percentile (10th) of the
+// medians of the COP speed over 0.25 s blocks: most blocks of a session are someone standing, and the block median
+// ignores single noisy samples. Thresholds derived from it never go below the fixed floors of DETECTION_DEFAULTS.
+import type { DetectionParams } from './params';
+
+export interface StillnessThresholds {
+  /** the noise floor, mm/s */
+  floorMmS: number;
+  /** COP speed below which the golfer is still, mm/s */
+  quietMmS: number;
+  /** COP speed below which the finish is settled, mm/s */
+  settleMmS: number;
+}
+
+const BLOCK_S = 0.25;
+const PERCENTILE = 0.1;
+
+function medianOf(v: Float64Array): number {
+  const s = v.slice().sort();
+  return s.length ? s[s.length >> 1] : NaN;
+}
+
+export function noiseFloor(speed: Float64Array, fs: number): number {
+  const block = Math.max(3, Math.round(BLOCK_S * fs));
+  const medians: number[] = [];
+  for (let a = 0; a + block <= speed.length; a += block) {
+    const m = medianOf(speed.subarray(a, a + block).filter(Number.isFinite));
+    if (Number.isFinite(m)) medians.push(m);
+  }
+  if (medians.length === 0) return 0;
+  medians.sort((x, y) => x - y);
+  return medians[Math.floor(PERCENTILE * (medians.length - 1))];
+}
+
+export function stillnessThresholds(speed: Float64Array, fs: number, p: DetectionParams): StillnessThresholds {
+  const floorMmS = noiseFloor(speed, fs);
+  const quietMmS = Math.max(p.quietSpeedMmS, p.noiseFloorFactor * floorMmS);
+  return { floorMmS, quietMmS, settleMmS: Math.max(p.settleSpeedMmS, 1.5 * quietMmS) };
+}

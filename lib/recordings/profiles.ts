@@ -1,4 +1,5 @@
 import 'server-only';
+import type { SavedImportProfile } from '@/lib/contracts/import-profiles';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { importProfileSchema, type ImportProfile } from '@/lib/signal';
@@ -21,7 +22,7 @@ export async function saveProfileOfCoach(viewer: Viewer, name: string, profile: 
   return Number(row.id);
 }
 
-export async function listProfilesOfCoach(viewer: Viewer): Promise<{ id: number; name: string; profile: ImportProfile }[]> {
+export async function listProfilesOfCoach(viewer: Viewer): Promise<SavedImportProfile[]> {
   const rows = await db('import_profiles').where({ coach_user_id: viewer.id }).orderBy('name').select('id', 'name', 'profile');
   return rows.map((row) => ({
     id: Number(row.id),

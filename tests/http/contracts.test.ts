@@ -5,6 +5,8 @@ import { bandCreatedSchema, bandDetailSchema, bandsResponseSchema } from '@/lib/
 import { compareResponseSchema, progressResponseSchema } from '@/lib/contracts/compare';
 import { assignmentResponseSchema, assignmentsResponseSchema, drillReportResponseSchema, drillResponseSchema, drillsResponseSchema } from '@/lib/contracts/drills';
 import { errorResponseSchema } from '@/lib/contracts/errors';
+import { importProfileCreatedSchema, importProfilesResponseSchema } from '@/lib/contracts/import-profiles';
+import { meResponseSchema } from '@/lib/contracts/me';
 import { recordingViewSchema, sessionRecordingsSchema } from '@/lib/contracts/recordings';
 import { swingViewResponseSchema } from '@/lib/contracts/swings';
 import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
@@ -52,6 +54,19 @@ describe('API answers match lib/contracts', () => {
 
   it('users', async () => {
     await conforms(admin, '/api/users', userListResponseSchema);
+  });
+
+  it('me, for each role', async () => {
+    const me = (await conforms(student, '/api/me', meResponseSchema)) as { athlete: unknown };
+    expect(me.athlete).not.toBeNull();
+    await conforms(coach, '/api/me', meResponseSchema);
+    await conforms(admin, '/api/me', meResponseSchema);
+  });
+
+  it('import profiles', async () => {
+    const profile = { header: true, time: { column: 't', unit: 's' }, units: 'N', sensors: { L1: 'left heel', R1: 'right heel' } };
+    await conforms(coach, '/api/import-profiles', importProfileCreatedSchema, json('POST', { name: 'contract probe', profile }), 201);
+    await conforms(coach, '/api/import-profiles', importProfilesResponseSchema);
   });
 
   it('recordings, sessions and swings', async () => {

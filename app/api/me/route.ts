@@ -1,5 +1,6 @@
 import { ALL_ROLES, requireRole } from '@/lib/auth/roles';
 import { listAthletesForViewer } from '@/lib/db/athletes';
+import type { MeResponse } from '@/lib/contracts/me';
 import { json, withErrors } from '@/lib/http';
 
 export const dynamic = 'force-dynamic';
@@ -8,5 +9,6 @@ export const dynamic = 'force-dynamic';
 export const GET = withErrors(async () => {
   const viewer = await requireRole(...ALL_ROLES);
   const athlete = viewer.role === 'student' ? ((await listAthletesForViewer(viewer))[0] ?? null) : null;
-  return json({ user: viewer, athlete });
+  const body: MeResponse = { user: viewer, athlete };
+  return json(body);
 });

@@ -4,7 +4,7 @@ const { existsSync, readdirSync, readFileSync } = require('node:fs');
 const { join, relative } = require('node:path');
 
 /** Packages the pure signal core may import; anything else (and anything from the app) is a violation. */
-const SIGNAL_PACKAGES = ['fili', 'ml-matrix', 'papaparse', 'zod'];
+const SIGNAL_PACKAGES = ['d3-array', 'fili', 'ml-matrix', 'papaparse', 'zod'];
 
 const escape = (s) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 

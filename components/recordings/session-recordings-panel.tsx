@@ -6,21 +6,35 @@ import type { SwingRow } from '@/components/swings/swing-table-columns';
 import { Card } from '@/components/ui/card';
 import { fetchJson } from '@/lib/fetcher';
 import { isSettled, sessionRecordingsSchema, type SessionRecordings } from '@/lib/contracts/recordings';
+import { clubLabels, flightLabels, strikeLabels } from '@/components/swings/labels';
 import { RecordingList } from './recording-list';
 
 const fetchSession = fetchJson(sessionRecordingsSchema);
 
+type Labels = SessionRecordings['swings'][number]['labels'];
+
+/** Strike, flight, tags and rating as one line for the table's Label column; null when none is set. */
+export function labelLine(labels: Labels): string | null {
+  const parts = [
+    labels.strike ? strikeLabels[labels.strike] : null,
+    labels.flight ? flightLabels[labels.flight] : null,
+    ...labels.tags,
+    labels.rating !== null ? `rated ${labels.rating}/5` : null,
+  ].filter((p): p is string => Boolean(p));
+  return parts.length > 0 ? parts.join(' · ') : null;
+}
+
 function toRows(view: SessionRecordings): SwingRow[] {
-  const names = new Map(view.recordings.map((r) => [r.id, r.filename]));
   return view.swings
     .filter((s) => !s.hidden)
     .map((s) => ({
       id: s.id,
+      number: s.number,
       index: s.index,
       recordingId: s.recordingId,
-      filename: names.get(s.recordingId) ?? `#${s.recordingId}`,
-      club: null,
-      label: null,
+      filename: s.filename,
+      club: s.labels.club ? clubLabels[s.labels.club] : null,
+      label: labelLine(s.labels),
       impactS: s.events.impact,
       leadPctAtImpact: s.leadPctAtImpact,
       tempoRatio: s.tempoRatio,

@@ -6,10 +6,12 @@ import { ScoreCell } from '@/components/targets/score-cell';
 
 export type SwingRow = {
   id: number;
+  /** 1..N over the whole session in time order */
+  number: number;
   index: number;
   recordingId: number;
   filename: string;
-  /** club and label are set by the coach in the viewer (next issue); until then always null */
+  /** the coach's labels from the viewer: club, and strike · flight · tags · rating as one line */
   club: string | null;
   label: string | null;
   impactS: number | null;
@@ -44,17 +46,17 @@ export const swingColumns: ColumnDef<SwingRow>[] = [
   {
     id: 'swing',
     header: 'Swing',
-    accessorFn: (r) => r.index,
+    accessorFn: (r) => r.number,
     cell: ({ row }) => (
       <span className="inline-flex items-center gap-2">
         <Link href={`/swings/${row.original.id}`} className="font-medium text-accent hover:underline">
-          Swing {row.original.index}
+          Swing {row.original.number}
         </Link>
         {row.original.stale && <Badge tone="notice">Kept: manual corrections</Badge>}
       </span>
     ),
   },
-  { id: 'recording', header: 'Recording', accessorFn: (r) => r.recordingId, filterFn: sameRecording, cell: ({ row }) => row.original.filename, sortingFn: (a, b) => a.original.filename.localeCompare(b.original.filename) || a.original.index - b.original.index },
+  { id: 'recording', header: 'Recording', accessorFn: (r) => r.recordingId, filterFn: sameRecording, cell: ({ row }) => <span title={`swing ${row.original.index} of this file`}>{row.original.filename} · {row.original.index}</span>, sortingFn: (a, b) => a.original.filename.localeCompare(b.original.filename) || a.original.index - b.original.index },
   { id: 'club', header: 'Club', accessorFn: (r) => r.club ?? undefined, filterFn: containsText, sortUndefined: 'last', cell: ({ getValue }) => getValue<string | undefined>() ?? dash },
   { id: 'label', header: 'Label', accessorFn: (r) => r.label ?? undefined, filterFn: containsText, sortUndefined: 'last', cell: ({ getValue }) => getValue<string | undefined>() ?? dash },
   { id: 'impact', header: 'Impact (s)', accessorFn: (r) => r.impactS ?? undefined, sortUndefined: 'last', enableColumnFilter: false, cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 3) },

@@ -43,7 +43,7 @@ export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a
 
 export async function progressForViewer(viewer: Viewer, athleteId: number, metrics: string[]): Promise<ProgressResponse> {
   await requireAthleteRead(viewer, athleteId);
-  const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
+  const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).whereNull('binned_at').select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
   const targets = new Map<ClubGroup, Target | null>();
   for (const g of new Set(facts.map((f) => f.clubGroup))) targets.set(g, await targetForSwing(athleteId, viewer.academyId, g));
   const rows = progressBySession(

@@ -26,11 +26,12 @@ function toPracticeSession(row: SessionRow): PracticeSession {
   };
 }
 
-/** Sessions of one athlete, newest first. Callers check that the viewer may see the athlete. */
+/** Sessions of one athlete in use (not in the bin), newest first. Callers check that the viewer may see the athlete. */
 export async function listSessionsForAthlete(athleteId: number): Promise<PracticeSession[]> {
   const rows: SessionRow[] = await db('practice_sessions')
     .select('id', 'athlete_id', 'session_date', 'context', 'location', 'notes')
     .where({ athlete_id: athleteId })
+    .whereNull('binned_at')
     .orderBy([
       { column: 'session_date', order: 'desc' },
       { column: 'id', order: 'desc' },

@@ -34,6 +34,9 @@ const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 const ALTERATIONS: [string, string, string][] = [
   // issue 11: users.session_version, checked against the token's version on every request
   ['add_users_session_version', 'users', 'session_version'],
+  // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
+  ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
+  ['add_recordings_binned_at', 'recordings', 'binned_at'],
 ];
 
 let scratch: ScratchDatabase;

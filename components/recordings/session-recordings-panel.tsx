@@ -44,8 +44,8 @@ function toRows(view: SessionRecordings): SwingRow[] {
 }
 
 /** Recordings and swings of one session; polls every 1.5 s while any recording is still queued or processing. */
-export function SessionRecordingsPanel({ sessionId, initial }: { sessionId: number; initial: SessionRecordings }) {
-  const { data } = useSWR(`/api/sessions/${sessionId}/recordings`, fetchSession, {
+export function SessionRecordingsPanel({ sessionId, initial, canEdit = false }: { sessionId: number; initial: SessionRecordings; canEdit?: boolean }) {
+  const { data, mutate } = useSWR(`/api/sessions/${sessionId}/recordings`, fetchSession, {
     fallbackData: initial,
     refreshInterval: (latest?: SessionRecordings) => (latest && latest.recordings.every((r) => isSettled(r.status)) ? 0 : 1500),
   });
@@ -54,7 +54,7 @@ export function SessionRecordingsPanel({ sessionId, initial }: { sessionId: numb
   return (
     <>
       <Card title={`Recordings (${view.recordings.length})`}>
-        <RecordingList recordings={view.recordings} />
+        <RecordingList recordings={view.recordings} onChanged={canEdit ? () => void mutate() : undefined} />
       </Card>
       <Card title={`Swings (${rows.length})`}>
         {rows.length === 0 ? (

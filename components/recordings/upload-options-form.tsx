@@ -34,6 +34,7 @@ export function UploadOptionsForm({
   sessions,
   profiles,
   disabled,
+  sessionExtra,
 }: {
   value: UploadOptionsState;
   onChange: (next: UploadOptionsState) => void;
@@ -41,6 +42,8 @@ export function UploadOptionsForm({
   sessions: PracticeSession[];
   profiles: SavedProfile[];
   disabled?: boolean;
+  /** under the session choice: the upload page puts its "new session" form here */
+  sessionExtra?: ReactNode;
 }) {
   const set = <K extends keyof UploadOptionsState>(key: K, v: UploadOptionsState[K]) => onChange({ ...value, [key]: v });
   const invalid = (key: keyof OptionErrors) => (errors[key] ? { 'aria-invalid': true, 'aria-describedby': `${key}-error` } : {});
@@ -49,7 +52,7 @@ export function UploadOptionsForm({
       <Section title="Session">
         <Field id="sessionId" label="Add the files to" error={errors.sessionId}>
           <select id="sessionId" className={selectClass} disabled={disabled} value={value.sessionId} onChange={(e) => set('sessionId', e.target.value)} {...invalid('sessionId')}>
-            <option value="">New session (practice, today)</option>
+            <option value="">A new practice session today</option>
             {sessions.map((s) => (
               <option key={s.id} value={String(s.id)}>
                 {formatDate(s.sessionDate)} · {contextLabels[s.context]}
@@ -58,6 +61,7 @@ export function UploadOptionsForm({
             ))}
           </select>
         </Field>
+        {sessionExtra}
       </Section>
 
       <Section title="Reading the file">

@@ -38,3 +38,9 @@ export async function listSessionsForAthlete(athleteId: number): Promise<Practic
     ]);
   return rows.map(toPracticeSession);
 }
+
+/** One session in use (not binned), or null. Callers check that the viewer may see it. */
+export async function findSession(id: number): Promise<PracticeSession | null> {
+  const row: SessionRow | undefined = await db('practice_sessions').where({ id }).whereNull('binned_at').first('id', 'athlete_id', 'session_date', 'context', 'location', 'notes');
+  return row ? toPracticeSession(row) : null;
+}

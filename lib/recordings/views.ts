@@ -159,7 +159,7 @@ function recordedAt(row: RecordingRow): number {
 }
 
 export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
-  const session = await db('practice_sessions').where({ id: sessionId }).first('id', 'athlete_id', 'session_date', 'context', 'location');
+  const session = await db('practice_sessions').where({ id: sessionId }).whereNull('binned_at').first('id', 'athlete_id', 'session_date', 'context', 'location');
   if (!session) return null;
   const rows: RecordingRow[] = await db('recordings').where({ session_id: sessionId }).whereNull('binned_at').orderBy('id').select(RECORDING_COLUMNS);
   const swings = await sessionSwings(sessionId, rows);

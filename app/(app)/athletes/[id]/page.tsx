@@ -8,16 +8,18 @@ import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
 import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
 import { idParamSchema } from '@/lib/http';
+import { SessionBin } from '@/components/sessions/session-bin';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
-export default async function AthletePage({ params }: { params: Promise<{ id: string }> }) {
+export default async function AthletePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const viewer = await requirePageRole('coach', 'student');
   const id = idParamSchema.safeParse((await params).id);
   if (!id.success) notFound();
   const athlete = await findAthleteForViewer(viewer, id.data);
   if (!athlete) notFound();
   const sessions = await listSessionsForAthlete(athlete.id);
+  const binned = idParamSchema.safeParse((await searchParams).binned);
   return (
     <>
       <PageHeader
@@ -44,6 +46,11 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           </div>
         }
       />
+      {viewer.role === 'coach' && (
+        <div className="mb-4">
+          <SessionBin athleteId={athlete.id} justBinned={binned.success ? binned.data : null} />
+        </div>
+      )}
       <AthleteOverview athlete={athlete} sessions={sessions} />
     </>
   );

@@ -136,13 +136,11 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
  * by start time within each. Every swing is numbered, hidden ones too, so marking one "not a swing" renumbers nothing.
  */
 async function sessionSwings(sessionId: number, recordings: RecordingRow[]): Promise<SessionSwing[]> {
-  const order = [...recordings].sort((a, b) => recordedAt(a) - recordedAt(b) || Number(a.id) - Number(b.id));
-  const rank = new Map(order.map((r, i) => [Number(r.id), i]));
   const filenames = new Map(recordings.map((r) => [Number(r.id), r.filename]));
   const swings = await swingViews(
     db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.session_id', sessionId).whereNull('r.binned_at').orderBy(['s.recording_id', 's.swing_index']),
   );
-  swings.sort((a, b) => (rank.get(a.recordingId) ?? 0) - (rank.get(b.recordingId) ?? 0) || a.startS - b.startS || a.index - b.index);
+  inSessionOrder(swings, recordings);
   const labelRows = swings.length > 0 ? await db('swing_labels').whereIn('swing_id', swings.map((s) => s.id)).select('swing_id', 'club', 'strike', 'flight', 'tags', 'rating') : [];
   const labelsBySwing = new Map(labelRows.map((row) => [Number(row.swing_id), row as Record<string, unknown>]));
   return swings.map((s, i) => {
@@ -151,9 +149,37 @@ async function sessionSwings(sessionId: number, recordings: RecordingRow[]): Pro
   });
 }
 
+/** Sorts a session's swings in time order: recordings by when they were recorded, swings by start within each. */
+function inSessionOrder<T extends { recordingId: number; startS: number; index: number }>(swings: T[], recordings: Pick<RecordingRow, 'id' | 'metadata' | 'created_at'>[]): T[] {
+  const order = [...recordings].sort((a, b) => recordedAt(a) - recordedAt(b) || Number(a.id) - Number(b.id));
+  const rank = new Map(order.map((r, i) => [Number(r.id), i]));
+  return swings.sort((a, b) => (rank.get(a.recordingId) ?? 0) - (rank.get(b.recordingId) ?? 0) || a.startS - b.startS || a.index - b.index);
+}
+
+/** Each swing's number in its session (the same 1..N as GET /api/sessions/:id/recordings), for the given sessions. */
+export async function sessionSwingNumbers(sessionIds: number[]): Promise<Map<number, number>> {
+  const out = new Map<number, number>();
+  if (sessionIds.length === 0) return out;
+  const recordings = await db('recordings').whereIn('session_id', sessionIds).whereNull('binned_at').select('id', 'session_id', 'metadata', 'created_at');
+  const swings = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .whereIn('r.session_id', sessionIds)
+    .whereNull('r.binned_at')
+    .select('s.id', 's.recording_id', 's.start_s', 's.swing_index', 'r.session_id');
+  for (const sessionId of sessionIds) {
+    const mine = swings
+      .filter((s) => Number(s.session_id) === sessionId)
+      .map((s) => ({ id: Number(s.id), recordingId: Number(s.recording_id), startS: Number(s.start_s), index: Number(s.swing_index) }));
+    inSessionOrder(mine, recordings.filter((r) => Number(r.session_id) === sessionId)).forEach((s, i) => out.set(s.id, i + 1));
+  }
+  return out;
+}
+
 /** When a recording began: the file's `# recorded_at:` metadata line (ISO 8601, spec/insole-csv.md) if it parses, else its upload time. */
-function recordedAt(row: RecordingRow): number {
-  const value = jsonColumn<Record<string, unknown>>(row.metadata)?.recorded_at;
+function recordedAt(row: Pick<RecordingRow, 'metadata' | 'created_at'>): number {
+  // metadata = the reader's summary; its `metadata` holds the file's own `# key: value` lines
+  const lines = jsonColumn<{ metadata?: Record<string, unknown> }>(row.metadata)?.metadata;
+  const value = lines?.recorded_at;
   const t = typeof value === 'string' ? Date.parse(value) : NaN;
   return Number.isFinite(t) ? t : new Date(row.created_at).getTime();
 }

@@ -38,7 +38,7 @@ function toRows(view: SessionRecordings): SwingRow[] {
       impactS: s.events.impact,
       leadPctAtImpact: s.leadPctAtImpact,
       tempoRatio: s.tempoRatio,
-      impactSource: s.impactSource,
+      impactSource: s.eventSources.impact.source === 'manual' ? 'manual' : s.impactSource,
       stale: s.stale,
     }));
 }

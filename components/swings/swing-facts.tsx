@@ -14,12 +14,15 @@ function Fact({ label, value, testId }: { label: string; value: string; testId?:
 }
 
 export function SwingFacts({ swing }: { swing: SwingDetail }) {
-  const leadAtImpact = swing.events.find((e) => e.name === 'impact')?.leadPct;
+  const impact = swing.events.find((e) => e.name === 'impact');
+  const leadAtImpact = impact?.leadPct;
+  // A hand-moved impact is the coach's own time, whatever first found it.
+  const impactFrom = impact?.source === 'manual' ? 'Set by hand' : impactSourceLabels[swing.impactSource];
   return (
     <dl className="flex flex-wrap items-baseline gap-x-8 gap-y-1 rounded-lg border border-surface-line bg-surface px-4 py-2.5">
       <Fact label="Tempo (backswing : downswing)" value={formatTempo(swing.tempoRatio)} testId="swing-tempo" />
       <Fact label="Lead % at impact" value={leadAtImpact == null ? '—' : `${leadAtImpact.toFixed(1)} %`} testId="swing-lead-at-impact" />
-      <Fact label="Impact time from" value={impactSourceLabels[swing.impactSource]} testId="swing-impact-source" />
+      <Fact label="Impact time from" value={impactFrom} testId="swing-impact-source" />
     </dl>
   );
 }

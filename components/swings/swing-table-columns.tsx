@@ -17,7 +17,8 @@ export type SwingRow = {
   impactS: number | null;
   leadPctAtImpact: number | null;
   tempoRatio: number | null;
-  impactSource: 'marker' | 'detected';
+  /** 'manual' when the coach moved impact by hand */
+  impactSource: 'marker' | 'detected' | 'manual';
   stale: boolean;
 };
 
@@ -63,5 +64,5 @@ export const swingColumns: ColumnDef<SwingRow>[] = [
   { id: 'leadPct', header: 'Lead % at impact', accessorFn: (r) => r.leadPctAtImpact ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatNumber(getValue<number | undefined>(), 1, ' %') },
   { id: 'tempo', header: 'Tempo', accessorFn: (r) => r.tempoRatio ?? undefined, filterFn: numberRange, sortUndefined: 'last', cell: ({ getValue }) => formatTempo(getValue<number | undefined>()) },
   { id: 'targetScore', header: 'Target checks', accessorFn: (r) => r.id, enableSorting: false, enableColumnFilter: false, cell: ({ row }) => <ScoreCell swingId={row.original.id} /> },
-  { id: 'impactSource', header: 'Impact from', accessorFn: (r) => r.impactSource, enableColumnFilter: false, cell: ({ getValue }) => (getValue<string>() === 'marker' ? 'Marker' : 'Pressure') },
+  { id: 'impactSource', header: 'Impact from', accessorFn: (r) => r.impactSource, enableColumnFilter: false, cell: ({ getValue }) => ({ marker: 'Marker', detected: 'Pressure', manual: 'By hand' })[getValue<'marker' | 'detected' | 'manual'>()] },
 ];

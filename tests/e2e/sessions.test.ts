@@ -92,7 +92,7 @@ describe('a coach’s sessions in the browser', () => {
     await page.waitForURL(/\/swings\/\d+$/);
     swingUrl = page.url();
     await page.locator('[data-testid="swing-workbench"][data-can-edit] [data-swing-viewer]').waitFor({ timeout: 30_000 });
-    await page.getByLabel('Club').selectOption('iron-7');
+    await page.getByTestId('labels-form').getByLabel('Club').selectOption('iron-7');
     await page.getByRole('button', { name: 'Save labels' }).click();
     await page.getByTestId('labels-saved').waitFor();
     await page.goto(`${baseUrl}/sessions/${sessionId}`);

@@ -143,3 +143,9 @@ export async function countSessionsSince(viewer: Viewer, sinceIsoDate: string): 
   const row = await db('practice_sessions').whereIn('athlete_id', ids).whereNull('binned_at').andWhere('session_date', '>=', sinceIsoDate).count({ n: '*' }).first();
   return Number(row?.n ?? 0);
 }
+
+/** Every player of an academy by name, for the admin's account linking (ids and names only). */
+export async function listAcademyPlayers(academyId: number): Promise<{ id: number; displayName: string }[]> {
+  const rows = await db('athletes').where({ academy_id: academyId }).orderBy('display_name').select('id', 'display_name');
+  return rows.map((a) => ({ id: Number(a.id), displayName: String(a.display_name) }));
+}

@@ -9,6 +9,9 @@ import { findAthleteForViewer } from '@/lib/db/athletes';
 import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
 import { idParamSchema } from '@/lib/http';
 import { SessionBin } from '@/components/sessions/session-bin';
+import { AccountLinkForm } from '@/components/athletes/account-link-form';
+import { linkedAccount } from '@/lib/athletes/account-link';
+import { Card } from '@/components/ui/card';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
@@ -20,6 +23,7 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
   if (!athlete) notFound();
   const sessions = await listSessionsForAthlete(athlete.id);
   const binned = idParamSchema.safeParse((await searchParams).binned);
+  const account = viewer.role === 'coach' ? await linkedAccount(athlete.id) : null;
   return (
     <>
       <PageHeader
@@ -52,6 +56,13 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
         </div>
       )}
       <AthleteOverview athlete={athlete} sessions={sessions} />
+      {viewer.role === 'coach' && (
+        <div className="mt-6">
+          <Card title="Student account">
+            <AccountLinkForm athleteId={athlete.id} account={account} />
+          </Card>
+        </div>
+      )}
     </>
   );
 }

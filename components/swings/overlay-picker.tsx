@@ -35,7 +35,8 @@ export function OverlayPicker({ self, options, value, onChange, loading }: { sel
       <label htmlFor="overlay-picker">Compare with</label>
       <input
         type="search"
-        aria-label="Find a swing to compare with (date, club, number)"
+        aria-label="Find a swing to compare with"
+        title="Search by date, club, swing number or file"
         placeholder="find…"
         value={query}
         onChange={(e) => setQuery(e.target.value)}

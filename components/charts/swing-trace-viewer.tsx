@@ -222,14 +222,14 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
       data-swing-viewer
     >
       <div className="mb-2 flex flex-wrap items-center gap-x-4 gap-y-2">
-        <div role="group" aria-label="Zoom" className="inline-flex overflow-hidden rounded-md border border-surface-line text-xs">
+        <div role="group" aria-label="Zoom" className="inline-flex overflow-hidden rounded-md border border-surface-line text-sm">
           {ZOOMS.map((z) => (
             <button
               key={z.id}
               type="button"
               aria-pressed={zoom === z.id}
               onClick={() => setZoom(z.id)}
-              className={`px-2.5 py-1 ${zoom === z.id ? 'bg-ink text-white' : 'bg-surface text-ink-muted hover:bg-surface-sunken'}`}
+              className={`min-h-11 px-3 text-sm ${zoom === z.id ? 'bg-ink text-white' : 'bg-surface text-ink-muted hover:bg-surface-sunken'}`}
             >
               {z.label}
             </button>
@@ -240,13 +240,13 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
             type="button"
             onClick={doUndo}
             disabled={history.past.length === 0}
-            className="rounded-md border border-surface-line px-2.5 py-1 text-xs text-ink hover:bg-surface-sunken disabled:text-ink-faint"
+            className="min-h-11 rounded-md border border-surface-line px-3 text-sm text-ink hover:bg-surface-sunken disabled:text-ink-faint"
             data-undo
           >
             Undo marker move{history.past.length ? ` (${history.past.length})` : ''}
           </button>
         )}
-        <p className="text-xs tabular-nums text-ink" aria-live="polite" data-cursor-readout>
+        <p className="text-sm tabular-nums text-ink" aria-live="polite" data-cursor-readout>
           <span className="font-semibold">{formatSeconds(cursorTime - zero, 2)} s</span>
           <span className="text-ink-muted"> · {where}</span>
         </p>
@@ -292,7 +292,7 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
           />
           <ValuesPanel series={series} events={events} cursorTime={cursorTime} corrected={corrected} timeZero={zero} />
           <p id={`${prefix}-keys`} className="text-[11px] leading-snug text-ink-faint">
-            Times in s from the start of the swing window. ← → one sample · Shift+← → or [ ] event to event · Home / End ends of view
+            Times in s from address (address = 0 s). ← → one sample · Shift+← → or [ ] event to event · Home / End ends of view
             {editable ? ' · drag a marker (or focus it and press ← →) to move an event · Ctrl+Z undoes' : ''}
             {editable ? ' · * moved by hand' : ''}
           </p>

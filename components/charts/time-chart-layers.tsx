@@ -180,7 +180,8 @@ function ChartLayersInner(p: LayerProps) {
                 <circle cx={m.px} cy={y(ev)} r={3.5} fill={CHART_COLOURS.surface} stroke={CHART_COLOURS.ink} strokeWidth={1.5} data-emphasis={m.name} />
               )}
               {p.editable && (
-                <rect data-drag-event={m.name} x={m.px - 6} y={0} width={12} height={h} fill="transparent" style={{ cursor: 'ew-resize' }} />
+                // 44 px wide: a finger-sized target on a tablet (WCAG 2.5.5 target size)
+                <rect data-drag-event={m.name} x={m.px - 22} y={0} width={44} height={h} fill="transparent" style={{ cursor: 'ew-resize' }} />
               )}
             </g>
           );

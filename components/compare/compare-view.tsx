@@ -15,13 +15,23 @@ const fetchCompare = fetchJson(compareResponseSchema);
 const fmt = (v: number | null | undefined, d = 2) => (v == null || !Number.isFinite(v) ? '—' : v.toFixed(d));
 const monthLabel = (m: string) => new Intl.DateTimeFormat('en-GB', { month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${m}-01T00:00:00Z`));
 
-export function setOptions(months: string[]) {
-  return [
-    { value: 'context:practice', label: 'Practice sessions' },
-    { value: 'context:on-course', label: 'On-course sessions' },
-    { value: 'context:lesson', label: 'Lessons' },
-    ...months.map((m) => ({ value: `month:${m}`, label: monthLabel(m) })),
-  ];
+const CONTEXT_SETS = [
+  { value: 'context:practice', label: 'Practice sessions' },
+  { value: 'context:on-course', label: 'On-course sessions' },
+  { value: 'context:lesson', label: 'Lessons' },
+];
+
+/** The sets on offer: only contexts and months that hold swings. */
+export function setOptions(contexts: string[], months: string[]) {
+  return [...CONTEXT_SETS.filter((o) => contexts.includes(o.value.slice('context:'.length))), ...months.map((m) => ({ value: `month:${m}`, label: monthLabel(m) }))];
+}
+
+/** Practice vs on-course when both hold swings; else the two newest months; else the first two sets on offer. */
+export function defaultSets(contexts: string[], months: string[]): [string, string] {
+  if (contexts.includes('practice') && contexts.includes('on-course')) return ['context:practice', 'context:on-course'];
+  if (months.length >= 2) return [`month:${months[0]}`, `month:${months[1]}`];
+  const all = setOptions(contexts, months).map((o) => o.value);
+  return [all[0] ?? 'context:practice', all[1] ?? 'context:on-course'];
 }
 
 function curveOf(set: CompareResponse['a']) {
@@ -31,10 +41,11 @@ function curveOf(set: CompareResponse['a']) {
   return { label: set.label, axis: mc.axis, curve: c };
 }
 
-export function CompareView({ athleteId, months }: { athleteId: number; months: string[] }) {
-  const options = setOptions(months);
-  const [a, setA] = useState(months.length >= 2 ? `month:${months[0]}` : 'context:practice');
-  const [b, setB] = useState(months.length >= 2 ? `month:${months[1]}` : 'context:on-course');
+export function CompareView({ athleteId, contexts, months }: { athleteId: number; contexts: string[]; months: string[] }) {
+  const options = setOptions(contexts, months);
+  const [initialA, initialB] = defaultSets(contexts, months);
+  const [a, setA] = useState(initialA);
+  const [b, setB] = useState(initialB);
   const [metrics, setMetrics] = useState<string[]>(['impact.leadPct', 'tempoRatio']);
   const url = metrics.length && a !== b ? `/api/athletes/${athleteId}/compare?a=${encodeURIComponent(a)}&b=${encodeURIComponent(b)}&metrics=${metrics.map(encodeURIComponent).join(',')}` : null;
   const { data, error, isLoading } = useSWR(url, fetchCompare, { revalidateOnFocus: false, keepPreviousData: true });
@@ -50,7 +61,8 @@ export function CompareView({ athleteId, months }: { athleteId: number; months: 
         </label>
         <MetricPicker metrics={metrics} onChange={setMetrics} className="text-sm" listClassName="max-w-2xl" />
       </div>
-      {a === b && <p className="text-sm text-ink-muted">Choose two different sets.</p>}
+      {options.length < 2 && <p className="text-sm text-ink-muted">Comparing needs swings in two sets (two kinds of session, or two months).</p>}
+      {a === b && options.length >= 2 && <p className="text-sm text-ink-muted">Choose two different sets.</p>}
       {metrics.length === 0 && <p className="text-sm text-ink-muted">Tick at least one metric.</p>}
       {error && <p role="alert" className="text-sm text-danger">Could not compare: {error instanceof Error ? error.message : ''}</p>}
       {isLoading && !data && <p className="text-sm text-ink-muted">Comparing…</p>}

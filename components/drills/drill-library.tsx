@@ -5,6 +5,7 @@ import { Badge } from '@/components/ui/badge';
 import { AssignForm } from './assign-form';
 import { DrillCard } from './drill-card';
 import { useAssignments, useDrills } from './drill-api';
+import { isOverdue } from './student-drills';
 
 type AthleteOption = { id: number; displayName: string };
 
@@ -41,7 +42,7 @@ export function CoachAssignments({ athletes }: { athletes: AthleteOption[] }) {
             <td className="py-1.5">{nameOf(a.athleteId, a.athleteName)}</td>
             <td className="py-1.5">{a.drill.name}</td>
             <td className="py-1.5">{formatDate(a.dueDate)}</td>
-            <td className="py-1.5">{a.practiceDone ? <Badge tone="ok">✓ done</Badge> : <Badge>open</Badge>}</td>
+            <td className="py-1.5">{a.practiceDone ? <Badge tone="ok">✓ done</Badge> : isOverdue(a) ? <Badge tone="notice">overdue</Badge> : <Badge>open</Badge>}</td>
             <td className="py-1.5 text-ink-muted">{a.studentNote || '—'}</td>
           </tr>
         ))}

@@ -29,13 +29,23 @@ export function StudentDrills() {
   );
 }
 
+/** Due before today and practice not done (dates compared as YYYY-MM-DD in the viewer's own calendar). */
+export function isOverdue(a: { dueDate: string; practiceDone: boolean }, today = localToday()): boolean {
+  return !a.practiceDone && a.dueDate < today;
+}
+
+function localToday(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}
+
 function PracticeDone({ assignment: a }: { assignment: Assignment }) {
   const [note, setNote] = useState(a.studentNote ?? '');
   const [err, setErr] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  async function save() {
+  async function save(done = true) {
     setErr(null);
-    const parsed = assignmentPatchSchema.safeParse({ practiceDone: true, ...(note.trim() ? { studentNote: note } : {}) });
+    const parsed = assignmentPatchSchema.safeParse({ practiceDone: done, ...(done && note.trim() ? { studentNote: note } : {}) });
     if (!parsed.success) return setErr(parsed.error.issues[0]?.message ?? 'Check the note.');
     setBusy(true);
     try {
@@ -49,9 +59,17 @@ function PracticeDone({ assignment: a }: { assignment: Assignment }) {
   }
   return (
     <div className="mt-3 space-y-2 border-t border-surface-line pt-3 text-sm" data-assignment={a.id} data-done={a.practiceDone ? 'true' : 'false'}>
-      <p className="text-xs text-ink-muted">Due {formatDate(a.dueDate)}</p>
+      <p className="text-sm text-ink-muted">
+        Due {formatDate(a.dueDate)} {isOverdue(a) && <Badge tone="notice">Overdue</Badge>}
+      </p>
       {a.practiceDone ? (
-        <p><Badge tone="ok">✓ Practice done</Badge>{a.studentNote ? <span className="ml-2 text-ink-muted">“{a.studentNote}”</span> : null}</p>
+        <>
+          <p><Badge tone="ok">✓ Practice done</Badge>{a.studentNote ? <span className="ml-2 text-ink-muted">“{a.studentNote}”</span> : null}</p>
+          <Button type="button" variant="secondary" className="min-h-11" onClick={() => void save(false)} disabled={busy}>
+            Not done yet (take back)
+          </Button>
+          {err && <p role="alert" className="text-xs text-danger">{err}</p>}
+        </>
       ) : (
         <>
           <label className="block">

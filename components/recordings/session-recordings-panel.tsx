@@ -6,33 +6,47 @@ import type { SwingRow } from '@/components/swings/swing-table-columns';
 import { Card } from '@/components/ui/card';
 import { fetchJson } from '@/lib/fetcher';
 import { isSettled, sessionRecordingsSchema, type SessionRecordings } from '@/lib/contracts/recordings';
+import { clubLabels, flightLabels, strikeLabels } from '@/components/swings/labels';
 import { RecordingList } from './recording-list';
 
 const fetchSession = fetchJson(sessionRecordingsSchema);
 
+type Labels = SessionRecordings['swings'][number]['labels'];
+
+/** Strike, flight, tags and rating as one line for the table's Label column; null when none is set. */
+export function labelLine(labels: Labels): string | null {
+  const parts = [
+    labels.strike ? strikeLabels[labels.strike] : null,
+    labels.flight ? flightLabels[labels.flight] : null,
+    ...labels.tags,
+    labels.rating !== null ? `rated ${labels.rating}/5` : null,
+  ].filter((p): p is string => Boolean(p));
+  return parts.length > 0 ? parts.join(' · ') : null;
+}
+
 function toRows(view: SessionRecordings): SwingRow[] {
-  const names = new Map(view.recordings.map((r) => [r.id, r.filename]));
   return view.swings
     .filter((s) => !s.hidden)
     .map((s) => ({
       id: s.id,
+      number: s.number,
       index: s.index,
       recordingId: s.recordingId,
-      filename: names.get(s.recordingId) ?? `#${s.recordingId}`,
-      club: null,
-      label: null,
+      filename: s.filename,
+      club: s.labels.club ? clubLabels[s.labels.club] : null,
+      label: labelLine(s.labels),
       impactS: s.events.impact,
       leadPctAtImpact: s.leadPctAtImpact,
       tempoRatio: s.tempoRatio,
-      impactSource: s.impactSource,
+      impactSource: s.eventSources.impact.source === 'manual' ? 'manual' : s.impactSource,
       stale: s.stale,
       partial: s.partial ?? false,
     }));
 }
 
 /** Recordings and swings of one session; polls every 1.5 s while any recording is still queued or processing. */
-export function SessionRecordingsPanel({ sessionId, initial }: { sessionId: number; initial: SessionRecordings }) {
-  const { data } = useSWR(`/api/sessions/${sessionId}/recordings`, fetchSession, {
+export function SessionRecordingsPanel({ sessionId, initial, canEdit = false }: { sessionId: number; initial: SessionRecordings; canEdit?: boolean }) {
+  const { data, mutate } = useSWR(`/api/sessions/${sessionId}/recordings`, fetchSession, {
     fallbackData: initial,
     refreshInterval: (latest?: SessionRecordings) => (latest && latest.recordings.every((r) => isSettled(r.status)) ? 0 : 1500),
   });
@@ -41,7 +55,7 @@ export function SessionRecordingsPanel({ sessionId, initial }: { sessionId: numb
   return (
     <>
       <Card title={`Recordings (${view.recordings.length})`}>
-        <RecordingList recordings={view.recordings} />
+        <RecordingList recordings={view.recordings} onChanged={canEdit ? () => void mutate() : undefined} />
       </Card>
       <Card title={`Swings (${rows.length})`}>
         {rows.length === 0 ? (

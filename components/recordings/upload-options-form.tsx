@@ -35,6 +35,7 @@ export function UploadOptionsForm({
   profiles,
   disabled,
   athlete,
+  sessionExtra,
 }: {
   value: UploadOptionsState;
   onChange: (next: UploadOptionsState) => void;
@@ -44,6 +45,8 @@ export function UploadOptionsForm({
   disabled?: boolean;
   /** the player's profile: used only where the file does not say */
   athlete?: { handedness: 'right' | 'left'; stanceWidthMm: number };
+  /** under the session choice: the upload page puts its "new session" form here */
+  sessionExtra?: ReactNode;
 }) {
   const set = <K extends keyof UploadOptionsState>(key: K, v: UploadOptionsState[K]) => onChange({ ...value, [key]: v });
   const invalid = (key: keyof OptionErrors) => (errors[key] ? { 'aria-invalid': true, 'aria-describedby': `${key}-error` } : {});
@@ -52,7 +55,7 @@ export function UploadOptionsForm({
       <Section title="Session">
         <Field id="sessionId" label="Add the files to" error={errors.sessionId}>
           <select id="sessionId" className={selectClass} disabled={disabled} value={value.sessionId} onChange={(e) => set('sessionId', e.target.value)} {...invalid('sessionId')}>
-            <option value="">New session (practice, today)</option>
+            <option value="">A new practice session today</option>
             {sessions.map((s) => (
               <option key={s.id} value={String(s.id)}>
                 {formatDate(s.sessionDate)} · {contextLabels[s.context]}
@@ -61,6 +64,7 @@ export function UploadOptionsForm({
             ))}
           </select>
         </Field>
+        {sessionExtra}
       </Section>
 
       <Section title="Reading the file">

@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useRef, useState } from 'react';
 import { Button, buttonClass } from '@/components/ui/button';
 import { Field, inputClass } from '@/components/ui/field';
+import { SessionForm } from '@/components/sessions/session-form';
 import { type PracticeSession } from '@/lib/contracts/athletes';
 import { errorResponseSchema } from '@/lib/contracts/errors';
 import { uploadResponseSchema } from '@/lib/contracts/recordings';
@@ -55,6 +56,10 @@ export function UploadWorkbench({
   const [busy, setBusy] = useState(false);
   const [doneSessionId, setDoneSessionId] = useState<number | null>(null);
   const counter = useRef(0);
+  // A session made here shows in the list at once; the server's list follows with the refresh.
+  const [made, setMade] = useState<PracticeSession[]>([]);
+  const [creating, setCreating] = useState(false);
+  const allSessions = [...made.filter((m) => !sessions.some((s) => s.id === m.id)), ...sessions];
 
   const update = (key: string, patch: Partial<QueuedFile>) => setItems((list) => list.map((it) => (it.key === key ? { ...it, ...patch } : it)));
 
@@ -132,7 +137,38 @@ export function UploadWorkbench({
             ))}
           </select>
         </Field>
-        <UploadOptionsForm value={options} onChange={setOptions} errors={errors} sessions={sessions} profiles={profiles} disabled={busy} athlete={athlete} />
+        <UploadOptionsForm
+          value={options}
+          onChange={setOptions}
+          errors={errors}
+          sessions={allSessions}
+          profiles={profiles}
+          disabled={busy}
+          athlete={athlete}
+          sessionExtra={
+            creating ? (
+              <div className="rounded-md border border-surface-line p-3">
+                <SessionForm
+                  athleteId={athlete.id}
+                  idPrefix="new-session"
+                  onCancel={() => setCreating(false)}
+                  onSaved={(saved) => {
+                    const { binnedAt: _b, restorableUntil: _r, ...session } = saved;
+                    setMade((list) => [session, ...list]);
+                    setOptions((o) => ({ ...o, sessionId: String(saved.id) }));
+                    setCreating(false);
+                    router.replace(`/upload?athlete=${athlete.id}&session=${saved.id}`, { scroll: false });
+                    router.refresh();
+                  }}
+                />
+              </div>
+            ) : (
+              <Button type="button" variant="secondary" className="min-h-11" disabled={busy} onClick={() => setCreating(true)} data-testid="new-session">
+                New session…
+              </Button>
+            )
+          }
+        />
       </div>
 
       <div className="space-y-4">

@@ -8,13 +8,15 @@ const td = 'py-2 pr-4';
 
 /** The five events with their times and the values at them (lead %, heel % per foot, stance COP). */
 export function EventTable({ events }: { events: SwingDetail['events'] }) {
+  const zero = events.find((e) => e.name === 'address')?.timeS ?? 0;
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm tabular-nums" data-testid="event-table">
         <thead className="border-b border-surface-line text-xs text-ink-muted">
           <tr>
             <th scope="col" className={th}>Event</th>
-            <th scope="col" className={th}>Time (s)</th>
+            <th scope="col" className={th}>From address (s)</th>
+            <th scope="col" className={`${th} text-ink-faint`} title="Seconds on the recording's own clock">Recording time (s)</th>
             <th scope="col" className={th}>Lead %</th>
             <th scope="col" className={th}>Lead heel %</th>
             <th scope="col" className={th}>Trail heel %</th>
@@ -27,7 +29,8 @@ export function EventTable({ events }: { events: SwingDetail['events'] }) {
           {events.map((e) => (
             <tr key={e.name} data-event={e.name}>
               <th scope="row" className={`${td} font-medium`}>{eventLabels[e.name]}</th>
-              <td className={td}>{formatNumber(e.timeS, 3)}</td>
+              <td className={td}>{formatNumber(e.timeS - zero, 2)}</td>
+              <td className={`${td} text-ink-muted`}>{formatNumber(e.timeS, 3)}</td>
               <td className={td}>{formatNumber(e.leadPct, 1)}</td>
               <td className={td}>{formatNumber(e.leadHeelPct, 1)}</td>
               <td className={td}>{formatNumber(e.trailHeelPct, 1)}</td>

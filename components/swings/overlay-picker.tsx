@@ -1,5 +1,6 @@
 'use client';
 // Pick a second swing of the same athlete to draw over this one; it is fetched only when chosen.
+import { useState } from 'react';
 import useSWR from 'swr';
 import type { OverlayTrace } from '@/components/charts';
 import { fetchJson } from '@/lib/fetcher';
@@ -17,26 +18,52 @@ export function useOverlay(id: number | null): { overlay: OverlayTrace | null; l
   return { overlay, loading: isLoading, error };
 }
 
+/** Grouped by session (newest first), swings in time order within each; a search box narrows the list by date, club, number or file. */
 export function OverlayPicker({ self, options, value, onChange, loading }: { self: number; options: SwingView['siblings']['sameAthlete']; value: number | null; onChange: (id: number | null) => void; loading: boolean }) {
+  const [query, setQuery] = useState('');
   const list = options.filter((o) => o.id !== self);
+  const q = query.trim().toLowerCase();
+  const shown = q ? list.filter((o) => `${o.group} ${o.label}`.toLowerCase().includes(q) || o.id === value) : list;
+  const groups: { name: string; items: typeof list }[] = [];
+  for (const o of shown) {
+    const last = groups[groups.length - 1];
+    if (last && last.name === o.group) last.items.push(o);
+    else groups.push({ name: o.group, items: [o] });
+  }
   return (
-    <label className="inline-flex items-center gap-1.5 text-xs text-ink-muted">
-      Compare with
+    <span className="inline-flex flex-wrap items-center gap-1.5 text-sm text-ink-muted">
+      <label htmlFor="overlay-picker">Compare with</label>
+      <input
+        type="search"
+        aria-label="Find a swing to compare with"
+        title="Search by date, club, swing number or file"
+        placeholder="find…"
+        value={query}
+        onChange={(e) => setQuery(e.target.value)}
+        className="min-h-11 w-24 rounded-md border border-surface-line bg-surface px-2 text-sm text-ink"
+        disabled={list.length === 0}
+        data-testid="overlay-search"
+      />
       <select
+        id="overlay-picker"
         value={value ?? ''}
         onChange={(e) => onChange(e.target.value ? Number(e.target.value) : null)}
-        className="max-w-[14rem] rounded-md border border-surface-line bg-surface px-2 py-1 text-xs text-ink"
+        className="min-h-11 max-w-[20rem] rounded-md border border-surface-line bg-surface px-2 text-sm text-ink"
         data-testid="overlay-picker"
         disabled={list.length === 0}
       >
-        <option value="">{list.length ? 'no second swing' : 'no other swings'}</option>
-        {list.map((o) => (
-          <option key={o.id} value={o.id}>
-            {o.label}
-          </option>
+        <option value="">{list.length ? (q ? `${shown.length} found` : 'no second swing') : 'no other swings'}</option>
+        {groups.map((g) => (
+          <optgroup key={g.name} label={g.name}>
+            {g.items.map((o) => (
+              <option key={o.id} value={o.id}>
+                {o.label}
+              </option>
+            ))}
+          </optgroup>
         ))}
       </select>
       {loading && <span aria-live="polite">loading…</span>}
-    </label>
+    </span>
   );
 }

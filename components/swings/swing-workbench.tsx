@@ -81,7 +81,9 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
   const frames = useMemo(() => sensorFrames(swing.sensorFrames), [swing.sensorFrames]);
   const layout = useMemo(() => sensorLayout(swing.layout), [swing.layout]);
   const win = useMemo(() => ({ startS: swing.startS, endS: swing.endS }), [swing.startS, swing.endS]);
-  const timeZero = swing.startS;
+  // One time base for everything a coach reads about the swing: seconds from the saved address (address = 0 s);
+  // recording seconds are the secondary detail (event table, subtitle).
+  const timeZero = saved?.address ?? swing.startS;
 
   const [pending, setPending] = useState<SwingEvents | null>(null);
   const [viewerKey, setViewerKey] = useState(0);
@@ -127,10 +129,28 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
   const usable = saved && series.time.length > 1 && swing.endS > swing.startS;
   const annotations = useMemo(() => (canEdit ? swing.annotations : swing.annotations.filter((a) => a.visibility === 'shared')), [canEdit, swing.annotations]);
 
+  const notesBlock = (
+    <div className={canEdit ? 'grid gap-3 lg:grid-cols-2' : 'space-y-3'}>
+      <Card title={canEdit ? 'Notes' : 'Your coach’s notes'}>
+        <MemoAnnotationList swingId={swing.id} annotations={annotations} events={saved} timeZero={timeZero} canEdit={canEdit} onChanged={refresh} />
+        {canEdit && (
+          <div className="mt-4 border-t border-surface-line pt-4">
+            <CursorAnnotationForm swingId={swing.id} cursor={cursor} timeZero={timeZero} onChanged={refresh} />
+          </div>
+        )}
+      </Card>
+      {canEdit && (
+        <Card title="Labels">
+          <MemoLabelsForm key={swing.id} swingId={swing.id} labels={swing.labels} onSaved={setSwing} />
+        </Card>
+      )}
+    </div>
+  );
+
   return (
     <div className="space-y-3" data-testid="swing-workbench" data-can-edit={canEdit ? 'true' : 'false'}>
       <SwingFacts swing={swing} />
-      <MemoRecordingOverview overview={swing.overview} siblings={swing.siblings} window={win} onJump={onJump} recordingId={swing.recording.id} canEdit={canEdit} />
+      {!canEdit && notesBlock}
       {canEdit && usable && (
         <EventEditBar
           swing={swing}
@@ -177,28 +197,16 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
       )}
       {overlayError != null && <p role="alert" className="text-sm text-danger">Could not load the second swing: {errorText(overlayError)}</p>}
       {bandError != null && <p role="alert" className="text-sm text-danger">Could not load the band: {errorText(bandError)}</p>}
+      {canEdit && notesBlock}
+      {!canEdit && (
+        <Card title="What the phases mean">
+          <MemoPhaseExplainer phases={swing.phases} />
+        </Card>
+      )}
+      <MemoRecordingOverview overview={swing.overview} siblings={swing.siblings} window={win} onJump={onJump} recordingId={swing.recording.id} canEdit={canEdit} />
       <Card title="Against the target">
         <ScorePanel swingId={swing.id} bandId={bandId} />
       </Card>
-      <div className={canEdit ? 'grid gap-3 lg:grid-cols-2' : 'space-y-3'}>
-        <Card title={canEdit ? 'Notes' : 'Your coach’s notes'}>
-          <MemoAnnotationList swingId={swing.id} annotations={annotations} events={saved} timeZero={timeZero} canEdit={canEdit} onChanged={refresh} />
-          {canEdit && (
-            <div className="mt-4 border-t border-surface-line pt-4">
-              <CursorAnnotationForm swingId={swing.id} cursor={cursor} timeZero={timeZero} onChanged={refresh} />
-            </div>
-          )}
-        </Card>
-        {canEdit ? (
-          <Card title="Labels">
-            <MemoLabelsForm key={swing.id} swingId={swing.id} labels={swing.labels} onSaved={setSwing} />
-          </Card>
-        ) : (
-          <Card title="What the phases mean">
-            <MemoPhaseExplainer phases={swing.phases} />
-          </Card>
-        )}
-      </div>
       <Tables swing={swing} />
       {canEdit && swing.corrections.length > 0 && (
         <Card title="Corrections">

@@ -46,27 +46,47 @@ async function requireOwnedBy(viewer: Viewer, athleteId: number | null, need: Ne
   return { athleteId, access: await requireAthlete(viewer, athleteId, need, what) };
 }
 
-/** A recording: read as its athlete; write (reprocess) as the athlete's coach. */
-export async function requireRecording(viewer: Viewer, recordingId: number, need: Need) {
-  const row = await db('recordings').where({ id: recordingId }).first('athlete_id');
-  return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'recording');
+// The bin: a session or recording a coach deleted (binned_at set) is unknown to every read and write (404) until it
+// is restored; only the restore routes reach it, with `{ binned: true }`.
+
+/** A recording: read as its athlete; write (reprocess, delete) as the athlete's coach. */
+export async function requireRecording(viewer: Viewer, recordingId: number, need: Need, opts: { binned?: boolean } = {}) {
+  const row = await db('recordings as r')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .where('r.id', recordingId)
+    .first('r.athlete_id', 'r.binned_at', 'p.binned_at as session_binned_at');
+  const visible = row && row.session_binned_at === null && (opts.binned ? row.binned_at !== null : row.binned_at === null);
+  return requireOwnedBy(viewer, visible ? Number(row.athlete_id) : null, need, 'recording');
 }
 
-/** A practice session: as its athlete. */
-export async function requireSession(viewer: Viewer, sessionId: number, need: Need) {
-  const row = await db('practice_sessions').where({ id: sessionId }).first('athlete_id');
-  return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'session');
+/** A practice session: as its athlete (write: edit, delete, restore: their coach). */
+export async function requireSession(viewer: Viewer, sessionId: number, need: Need, opts: { binned?: boolean } = {}) {
+  const row = await db('practice_sessions').where({ id: sessionId }).first('athlete_id', 'binned_at');
+  const visible = row && (opts.binned ? row.binned_at !== null : row.binned_at === null);
+  return requireOwnedBy(viewer, visible ? Number(row.athlete_id) : null, need, 'session');
 }
 
 /** A swing: read as its athlete; write (events, labels, notes) as the athlete's coach. */
 export async function requireSwing(viewer: Viewer, swingId: number, need: Need) {
-  const row = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('s.id', swingId).first('r.athlete_id');
+  const row = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .where('s.id', swingId)
+    .whereNull('r.binned_at')
+    .whereNull('p.binned_at')
+    .first('r.athlete_id');
   return requireOwnedBy(viewer, row ? Number(row.athlete_id) : null, need, 'swing');
 }
 
 /** Every swing of a list, for writing with them (building a band): the first one the viewer does not coach is a 404. */
 export async function requireSwingsToUse(viewer: Viewer, swingIds: number[]): Promise<void> {
-  const owners = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').whereIn('s.id', swingIds).select('s.id', 'r.athlete_id');
+  const owners = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .whereIn('s.id', swingIds)
+    .select('s.id', 'r.athlete_id', 'r.binned_at', 'p.binned_at as session_binned_at');
+  const binned = owners.find((o) => o.binned_at !== null || o.session_binned_at !== null);
+  if (binned) throw new NotFoundError(`No swing with id ${binned.id} on your roster.`);
   const coached = new Map<number, boolean>();
   for (const o of owners) {
     const athleteId = Number(o.athlete_id);

@@ -27,6 +27,8 @@ export async function swingChoicesFor(viewer: Viewer): Promise<AthleteChoice[]> 
     .join('practice_sessions as p', 'p.id', 'r.session_id')
     .leftJoin('swing_event_values as v', (j) => j.on('v.swing_id', 's.id').andOnVal('v.event', 'impact'))
     .whereIn('p.athlete_id', athletes.map((a) => a.id))
+    .whereNull('p.binned_at')
+    .whereNull('r.binned_at')
     .andWhere({ 's.hidden': false, 's.stale': false })
     .orderBy([
       { column: 'p.session_date', order: 'desc' },

@@ -43,7 +43,7 @@ export async function compareForViewer(viewer: Viewer, athleteId: number, q: { a
 
 export async function progressForViewer(viewer: Viewer, athleteId: number, metrics: string[]): Promise<ProgressResponse> {
   await requireAthleteRead(viewer, athleteId);
-  const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
+  const [sessions, facts] = await Promise.all([db('practice_sessions').where({ athlete_id: athleteId }).whereNull('binned_at').select('id', 'session_date', 'context'), swingFacts({ athleteId })]);
   const targets = new Map<ClubGroup, Target | null>();
   for (const g of new Set(facts.map((f) => f.clubGroup))) targets.set(g, await targetForSwing(athleteId, viewer.academyId, g));
   const rows = progressBySession(
@@ -56,4 +56,22 @@ export async function progressForViewer(viewer: Viewer, athleteId: number, metri
     },
   );
   return { sessions: rows };
+}
+
+/**
+ * The sets of an athlete that hold swings (counted swings: not hidden, not stale, sessions and recordings not in
+ * the bin): the session contexts and the months (YYYY-MM, newest first). The compare page offers only these.
+ */
+export async function setsWithSwings(athleteId: number): Promise<{ contexts: string[]; months: string[] }> {
+  const rows = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .where('p.athlete_id', athleteId)
+    .whereNull('p.binned_at')
+    .whereNull('r.binned_at')
+    .andWhere({ 's.hidden': false, 's.stale': false })
+    .distinct('p.context', 'p.session_date');
+  const contexts = [...new Set(rows.map((r) => String(r.context)))];
+  const months = [...new Set(rows.map((r) => (toIsoDate(r.session_date) ?? '').slice(0, 7)).filter(Boolean))].sort().reverse();
+  return { contexts, months };
 }

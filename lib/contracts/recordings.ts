@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { recordingOptionsSchema } from '@/lib/recordings/options';
 import { EVENT_NAMES } from '@/lib/signal/types';
+import { clubs, flights, strikes } from '@/lib/contracts/swings';
 
 // The recordings API's responses (lib/recordings/views.ts, lib/recordings/upload.ts build them; the client parses
 // them through lib/fetcher.ts).
@@ -71,10 +72,26 @@ export const recordingViewSchema = z.object({
   promotions: z.array(promotionSchema),
 });
 
+/** A swing's labels as the session's swing table shows and filters them ("not a swing" is `hidden`). */
+export const swingListLabelsSchema = z.object({
+  club: z.enum(clubs).nullable(),
+  strike: z.enum(strikes).nullable(),
+  flight: z.enum(flights).nullable(),
+  tags: z.array(z.string()),
+  rating: z.number().int().min(1).max(5).nullable(),
+});
+
+/** A swing in its session's list: `number` runs 1..N over the whole session in time order; `filename` is its file. */
+export const sessionSwingSchema = swingSummarySchema.extend({
+  number: z.number().int().positive(),
+  filename: z.string(),
+  labels: swingListLabelsSchema,
+});
+
 export const sessionRecordingsSchema = z.object({
   session: z.object({ id: z.number().int(), athleteId: z.number().int(), sessionDate: z.string(), context: z.string(), location: z.string().nullable() }),
   recordings: z.array(z.object({ ...recordingBase, swingCount: z.number().int() })),
-  swings: z.array(swingSummarySchema),
+  swings: z.array(sessionSwingSchema),
 });
 
 export const uploadResponseSchema = z.object({
@@ -86,6 +103,7 @@ export const uploadResponseSchema = z.object({
 export type SwingSummary = z.infer<typeof swingSummarySchema>;
 export type CandidateView = z.infer<typeof candidateSchema>;
 export type PromotionView = z.infer<typeof promotionSchema>;
+export type SessionSwing = z.infer<typeof sessionSwingSchema>;
 export type UploadResponse = z.infer<typeof uploadResponseSchema>;
 export type RecordingView = z.infer<typeof recordingViewSchema>;
 export type SessionRecordings = z.infer<typeof sessionRecordingsSchema>;

@@ -109,7 +109,8 @@ export const swingViewSchema = swingDetailSchema.extend({
   siblings: z.object({
     previousId: z.number().int().nullable(),
     nextId: z.number().int().nullable(),
-    sameAthlete: z.array(z.object({ id: z.number().int(), label: z.string() })),
+    /** other swings of the athlete, newest session first, each session's swings in time order; `group` names the session */
+    sameAthlete: z.array(z.object({ id: z.number().int(), label: z.string(), group: z.string() })),
   }),
   layout: z.object({
     id: z.string(),

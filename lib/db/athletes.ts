@@ -51,10 +51,10 @@ function scopedAthletes(viewer: Viewer): Knex.QueryBuilder {
       'a.date_of_birth',
       'a.home_club',
       db.raw(
-        '(select p.session_date from practice_sessions p where p.athlete_id = a.id order by p.session_date desc, p.id desc limit 1) as last_session_date',
+        '(select p.session_date from practice_sessions p where p.athlete_id = a.id and p.binned_at is null order by p.session_date desc, p.id desc limit 1) as last_session_date',
       ),
       db.raw(
-        '(select p.context from practice_sessions p where p.athlete_id = a.id order by p.session_date desc, p.id desc limit 1) as last_session_context',
+        '(select p.context from practice_sessions p where p.athlete_id = a.id and p.binned_at is null order by p.session_date desc, p.id desc limit 1) as last_session_context',
       ),
     )
     .where('a.academy_id', viewer.academyId);
@@ -85,7 +85,7 @@ export async function listAthletesForViewer(viewer: Viewer, filters: AthleteList
   if (filters.context) {
     // "has at least one session in this context"
     query.whereExists(
-      db('practice_sessions as pc').select(db.raw('1')).whereRaw('pc.athlete_id = a.id').andWhere('pc.context', filters.context),
+      db('practice_sessions as pc').select(db.raw('1')).whereRaw('pc.athlete_id = a.id').whereNull('pc.binned_at').andWhere('pc.context', filters.context),
     );
   }
   const rows: AthleteRow[] = await query.orderBy('a.display_name', 'asc').orderBy('a.id', 'asc');
@@ -140,6 +140,12 @@ export async function updateAthleteForViewer(viewer: Viewer, athleteId: number, 
 /** Roster size and sessions in the last 30 days, for the coach home page. */
 export async function countSessionsSince(viewer: Viewer, sinceIsoDate: string): Promise<number> {
   const ids = scopedAthletes(viewer).clearSelect().select('a.id');
-  const row = await db('practice_sessions').whereIn('athlete_id', ids).andWhere('session_date', '>=', sinceIsoDate).count({ n: '*' }).first();
+  const row = await db('practice_sessions').whereIn('athlete_id', ids).whereNull('binned_at').andWhere('session_date', '>=', sinceIsoDate).count({ n: '*' }).first();
   return Number(row?.n ?? 0);
+}
+
+/** Every player of an academy by name, for the admin's account linking (ids and names only). */
+export async function listAcademyPlayers(academyId: number): Promise<{ id: number; displayName: string }[]> {
+  const rows = await db('athletes').where({ academy_id: academyId }).orderBy('display_name').select('id', 'display_name');
+  return rows.map((a) => ({ id: Number(a.id), displayName: String(a.display_name) }));
 }

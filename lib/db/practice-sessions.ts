@@ -26,14 +26,21 @@ function toPracticeSession(row: SessionRow): PracticeSession {
   };
 }
 
-/** Sessions of one athlete, newest first. Callers check that the viewer may see the athlete. */
+/** Sessions of one athlete in use (not in the bin), newest first. Callers check that the viewer may see the athlete. */
 export async function listSessionsForAthlete(athleteId: number): Promise<PracticeSession[]> {
   const rows: SessionRow[] = await db('practice_sessions')
     .select('id', 'athlete_id', 'session_date', 'context', 'location', 'notes')
     .where({ athlete_id: athleteId })
+    .whereNull('binned_at')
     .orderBy([
       { column: 'session_date', order: 'desc' },
       { column: 'id', order: 'desc' },
     ]);
   return rows.map(toPracticeSession);
+}
+
+/** One session in use (not binned), or null. Callers check that the viewer may see it. */
+export async function findSession(id: number): Promise<PracticeSession | null> {
+  const row: SessionRow | undefined = await db('practice_sessions').where({ id }).whereNull('binned_at').first('id', 'athlete_id', 'session_date', 'context', 'location', 'notes');
+  return row ? toPracticeSession(row) : null;
 }

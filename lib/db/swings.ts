@@ -55,6 +55,8 @@ export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{
     .join('practice_sessions as p', 'p.id', 'r.session_id')
     .join('athletes as a', 'a.id', 'r.athlete_id')
     .where('s.id', swingId)
+    .whereNull('r.binned_at') // a swing of a deleted session or recording is unknown until it is restored
+    .whereNull('p.binned_at')
     .first(
       's.id',
       's.swing_index',

@@ -165,7 +165,7 @@ export async function drillReport(viewer: Viewer, sessionId: number): Promise<Dr
       dueDate: a.dueDate,
       practiceDone: a.practiceDone,
       studentNote: a.studentNote,
-      checks: checkMoves(a.drill.addressesChecks, facts, a.assignedAt, sessionDate),
+      checks: checkMoves(a.drill.addressesChecks, facts, a.assignedAt, sessionId),
     })),
   };
 }

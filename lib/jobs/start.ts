@@ -3,7 +3,10 @@
 import { createKnex } from '@/lib/db/connection';
 import { getEnv } from '@/lib/env';
 import { getStore } from '@/lib/storage';
+import { sweepBin } from '@/lib/sessions/bin';
 import { startWorker, type Worker } from './worker';
+
+const BIN_SWEEP_EVERY_MS = 60 * 60 * 1000;
 
 const globalForWorker = globalThis as typeof globalThis & { __stancelineWorker?: Worker };
 
@@ -20,6 +23,13 @@ export function startAppWorker(): Worker | null {
     log: (message) => console.error(`[stanceline worker] ${message}`),
   });
   globalForWorker.__stancelineWorker = worker;
+  // The bin's sweep (sessions and recordings deleted more than 30 days ago) runs beside the worker, once an hour.
+  const sweep = () =>
+    void sweepBin(db, getStore())
+      .then((r) => r.sessions + r.recordings > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files`))
+      .catch((error) => console.error('[stanceline bin] sweep failed', error));
+  sweep();
+  setInterval(sweep, BIN_SWEEP_EVERY_MS).unref();
   console.log(`[stanceline worker] ${worker.id} polling every ${env.WORKER_POLL_MS} ms, raw files in ${getStore().description}`);
   return worker;
 }

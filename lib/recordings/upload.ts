@@ -54,8 +54,8 @@ export async function optionsFor(viewer: Viewer, fields: UploadFields): Promise<
 
 async function sessionFor(viewer: Viewer, fields: UploadFields): Promise<number> {
   if (fields.sessionId !== undefined) {
-    const session = await db('practice_sessions').where({ id: fields.sessionId }).first('athlete_id');
-    if (!session || Number(session.athlete_id) !== fields.athleteId) {
+    const session = await db('practice_sessions').where({ id: fields.sessionId }).first('athlete_id', 'binned_at');
+    if (!session || Number(session.athlete_id) !== fields.athleteId || session.binned_at !== null) {
       throw fieldError('sessionId', 'This session is not one of this athlete’s sessions.');
     }
     return fields.sessionId;
@@ -76,7 +76,9 @@ function isDuplicateKey(error: unknown): boolean {
 
 /** Keeps one spooled file: raw bytes into storage first, then the recording row and its job in one transaction. */
 async function keepFile(viewer: Viewer, athleteId: number, sessionId: number, file: ReceivedFile, options: RecordingOptions): Promise<UploadedRecording> {
-  const existing = await db('recordings').where({ session_id: sessionId, sha256: file.sha256 }).first('id', 'status');
+  const existing = await db('recordings').where({ session_id: sessionId, sha256: file.sha256 }).first('id', 'status', 'binned_at');
+  // The same bytes uploaded again after the recording was deleted: it comes back out of the bin.
+  if (existing?.binned_at) await db('recordings').where({ id: existing.id }).update({ binned_at: null });
   if (existing) return { id: Number(existing.id), filename: file.filename, status: existing.status, duplicate: true, sessionId };
   const store = getStore();
   const key = `recordings/${athleteId}/${randomUUID()}`;

@@ -3,7 +3,8 @@ import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
 import { jsonColumn, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { EVENT_NAMES, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
-import type { CandidateView, PromotionView, RecordingStatus, RecordingView, SessionRecordings, SwingSummary } from '@/lib/contracts/recordings';
+import type { CandidateView, PromotionView, RecordingStatus, RecordingView, SessionRecordings, SessionSwing, SwingSummary } from '@/lib/contracts/recordings';
+import { labelsOf } from '@/lib/swings/labels';
 import type { RecordingOptions } from './options';
 
 // Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
@@ -163,7 +164,7 @@ const RECORDING_COLUMNS = [
 ];
 
 export async function getRecordingView(id: number): Promise<RecordingView | null> {
-  const row: RecordingRow | undefined = await db('recordings').where({ id }).first(RECORDING_COLUMNS);
+  const row: RecordingRow | undefined = await db('recordings').where({ id }).whereNull('binned_at').first(RECORDING_COLUMNS);
   if (!row) return null;
   const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
   const promotions = (await db('candidate_promotions').where({ recording_id: id }).orderBy('id').select('id', 'time_s', 'reason', 'user_id', 'at')).map((p) => ({
@@ -176,13 +177,65 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
   return toView(row, swings, await candidateViews(id), promotions);
 }
 
-export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
-  const session = await db('practice_sessions').where({ id: sessionId }).first('id', 'athlete_id', 'session_date', 'context', 'location');
-  if (!session) return null;
-  const rows: RecordingRow[] = await db('recordings').where({ session_id: sessionId }).orderBy('id').select(RECORDING_COLUMNS);
+/**
+ * The swings of a session in time order with their labels and a `number` 1..N over the whole session: recordings in
+ * the order they were recorded (the file's own start time when its metadata has one, else the upload order), swings
+ * by start time within each. Every swing is numbered, hidden ones too, so marking one "not a swing" renumbers nothing.
+ */
+async function sessionSwings(sessionId: number, recordings: RecordingRow[]): Promise<SessionSwing[]> {
+  const filenames = new Map(recordings.map((r) => [Number(r.id), r.filename]));
   const swings = await swingViews(
-    db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.session_id', sessionId).orderBy(['s.recording_id', 's.swing_index']),
+    db('swings as s').join('recordings as r', 'r.id', 's.recording_id').where('r.session_id', sessionId).whereNull('r.binned_at').orderBy(['s.recording_id', 's.swing_index']),
   );
+  inSessionOrder(swings, recordings);
+  const labelRows = swings.length > 0 ? await db('swing_labels').whereIn('swing_id', swings.map((s) => s.id)).select('swing_id', 'club', 'strike', 'flight', 'tags', 'rating') : [];
+  const labelsBySwing = new Map(labelRows.map((row) => [Number(row.swing_id), row as Record<string, unknown>]));
+  return swings.map((s, i) => {
+    const { notASwing: _hidden, ...labels } = labelsOf(labelsBySwing.get(s.id), s.hidden);
+    return { ...s, number: i + 1, filename: filenames.get(s.recordingId) ?? '', labels };
+  });
+}
+
+/** Sorts a session's swings in time order: recordings by when they were recorded, swings by start within each. */
+function inSessionOrder<T extends { recordingId: number; startS: number; index: number }>(swings: T[], recordings: Pick<RecordingRow, 'id' | 'metadata' | 'created_at'>[]): T[] {
+  const order = [...recordings].sort((a, b) => recordedAt(a) - recordedAt(b) || Number(a.id) - Number(b.id));
+  const rank = new Map(order.map((r, i) => [Number(r.id), i]));
+  return swings.sort((a, b) => (rank.get(a.recordingId) ?? 0) - (rank.get(b.recordingId) ?? 0) || a.startS - b.startS || a.index - b.index);
+}
+
+/** Each swing's number in its session (the same 1..N as GET /api/sessions/:id/recordings), for the given sessions. */
+export async function sessionSwingNumbers(sessionIds: number[]): Promise<Map<number, number>> {
+  const out = new Map<number, number>();
+  if (sessionIds.length === 0) return out;
+  const recordings = await db('recordings').whereIn('session_id', sessionIds).whereNull('binned_at').select('id', 'session_id', 'metadata', 'created_at');
+  const swings = await db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .whereIn('r.session_id', sessionIds)
+    .whereNull('r.binned_at')
+    .select('s.id', 's.recording_id', 's.start_s', 's.swing_index', 'r.session_id');
+  for (const sessionId of sessionIds) {
+    const mine = swings
+      .filter((s) => Number(s.session_id) === sessionId)
+      .map((s) => ({ id: Number(s.id), recordingId: Number(s.recording_id), startS: Number(s.start_s), index: Number(s.swing_index) }));
+    inSessionOrder(mine, recordings.filter((r) => Number(r.session_id) === sessionId)).forEach((s, i) => out.set(s.id, i + 1));
+  }
+  return out;
+}
+
+/** When a recording began: the file's `# recorded_at:` metadata line (ISO 8601, spec/insole-csv.md) if it parses, else its upload time. */
+function recordedAt(row: Pick<RecordingRow, 'metadata' | 'created_at'>): number {
+  // metadata = the reader's summary; its `metadata` holds the file's own `# key: value` lines
+  const lines = jsonColumn<{ metadata?: Record<string, unknown> }>(row.metadata)?.metadata;
+  const value = lines?.recorded_at;
+  const t = typeof value === 'string' ? Date.parse(value) : NaN;
+  return Number.isFinite(t) ? t : new Date(row.created_at).getTime();
+}
+
+export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
+  const session = await db('practice_sessions').where({ id: sessionId }).whereNull('binned_at').first('id', 'athlete_id', 'session_date', 'context', 'location');
+  if (!session) return null;
+  const rows: RecordingRow[] = await db('recordings').where({ session_id: sessionId }).whereNull('binned_at').orderBy('id').select(RECORDING_COLUMNS);
+  const swings = await sessionSwings(sessionId, rows);
   return {
     session: {
       id: Number(session.id),

@@ -5,6 +5,7 @@ import type { SwingView } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
 import { jsonColumn, toIsoDate } from '@/lib/db/values';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
+import { sessionSwingNumbers } from '@/lib/recordings/views';
 import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
 
 // The viewer's parts of GET /api/swings/:id besides the numbers: the swing's full-rate traces, the recording's
@@ -62,18 +63,33 @@ export async function siblingsView(swingId: number, recordingId: number, swingIn
     db('swings as s')
       .join('recordings as r', 'r.id', 's.recording_id')
       .join('practice_sessions as p', 'p.id', 'r.session_id')
+      .leftJoin('swing_labels as l', 'l.swing_id', 's.id')
       .where('r.athlete_id', athleteId)
+      .whereNull('r.binned_at')
+      .whereNull('p.binned_at')
       .andWhere('s.hidden', false)
       .andWhere('s.stale', false)
       .andWhereNot('s.id', swingId)
-      .orderBy([{ column: 'p.session_date', order: 'desc' }, { column: 'r.id', order: 'desc' }, { column: 's.swing_index', order: 'asc' }])
-      .limit(50)
-      .select('s.id', 's.swing_index', 'r.filename', 'p.session_date'),
+      .orderBy([{ column: 'p.session_date', order: 'desc' }, { column: 'p.id', order: 'desc' }, { column: 'r.id', order: 'desc' }, { column: 's.swing_index', order: 'asc' }])
+      .limit(200)
+      .select('s.id', 's.swing_index', 'r.filename', 'p.id as session_id', 'p.session_date', 'p.context', 'p.location', 'l.club'),
   ]);
+  // Grouped by session (newest first), each session's swings in time order with their session-wide number.
+  const numbers = await sessionSwingNumbers([...new Set(same.map((s) => Number(s.session_id)))]);
+  const sessionRank = new Map<number, number>();
+  for (const s of same) if (!sessionRank.has(Number(s.session_id))) sessionRank.set(Number(s.session_id), sessionRank.size);
+  const rows = same
+    .map((s) => ({ s, n: numbers.get(Number(s.id)) ?? Number(s.swing_index) }))
+    .sort((a, b) => sessionRank.get(Number(a.s.session_id))! - sessionRank.get(Number(b.s.session_id))! || a.n - b.n);
+  const contextName: Record<string, string> = { lesson: 'lesson', practice: 'practice', 'on-course': 'on course' };
   return {
     previousId: prev ? Number(prev.id) : null,
     nextId: next ? Number(next.id) : null,
-    sameAthlete: same.map((s) => ({ id: Number(s.id), label: `${toIsoDate(s.session_date)} · ${s.filename} · swing ${s.swing_index}` })),
+    sameAthlete: rows.map(({ s, n }) => ({
+      id: Number(s.id),
+      label: `Swing ${n}${s.club ? ` · ${String(s.club).replace(/^iron-(\d)$/, '$1-iron')}` : ''} · ${s.filename}`,
+      group: `${toIsoDate(s.session_date)} · ${contextName[s.context] ?? s.context}${s.location ? ` · ${s.location}` : ''}`,
+    })),
   };
 }
 

@@ -40,6 +40,8 @@ export async function swingFacts(where: { swingIds?: number[]; athleteId?: numbe
     .join('practice_sessions as p', 'p.id', 'r.session_id')
     .join('athletes as a', 'a.id', 'r.athlete_id')
     .leftJoin('swing_labels as l', 'l.swing_id', 's.id')
+    .whereNull('r.binned_at') // the bin: deleted sessions and recordings count nowhere
+    .whereNull('p.binned_at')
     .select('s.id', 's.hidden', 's.partial', 's.tempo_ratio', 'r.athlete_id', 'r.parameters', 'r.options', 'a.stance_width_mm', 'p.id as session_id', 'p.session_date', 'p.context', 'l.club')
     .orderBy('s.id');
   if (where.swingIds) q.whereIn('s.id', where.swingIds);

@@ -39,6 +39,9 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_finder_fields_to_swings', 'swings', 'partial'],
   // users.session_version, checked against the token's version on every request
   ['add_users_session_version', 'users', 'session_version'],
+  // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
+  ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
+  ['add_recordings_binned_at', 'recordings', 'binned_at'],
 ];
 
 let scratch: ScratchDatabase;

@@ -111,7 +111,7 @@ describe('the swing viewer', () => {
     const expectedTop = Math.round((eventTime(before, 'top') + direction * MOVE_S) * 1000) / 1000;
     const unsaved = coachPage.getByTestId('unsaved-moves');
     await unsaved.waitFor();
-    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(expectedTop - before.startS).toFixed(2)} s`);
+    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(expectedTop - eventTime(before, 'address')).toFixed(2)} s`);
     // the viewer marks the moved marker before saving too
     expect(await chart.locator('[data-event-marker="top"]').getAttribute('data-corrected')).toBe('true');
 
@@ -212,7 +212,7 @@ describe('the swing viewer', () => {
     const current = eventTime(await getSwing(coachApi, swingId), 'top');
     const unsaved = coachPage.getByTestId('unsaved-moves');
     await unsaved.waitFor();
-    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(current - 0.02 - before.startS).toFixed(2)} s`);
+    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(current - 0.02 - eventTime(before, 'address')).toFixed(2)} s`);
     await coachPage.locator('[data-undo]').click();
     await coachPage.locator('[data-undo]').click();
     await expect(unsaved.count()).resolves.toBe(0);

@@ -141,6 +141,11 @@ describe('drills', () => {
     const a = (done.body as { assignments: any[] }).assignments.find((x) => x.id === 1);
     expect(a).toMatchObject({ practiceDone: true, studentNote: 'Did three sets.' });
     expect(a.doneAt).not.toBeNull();
+    // the student can take "done" back, and mark it again
+    const undone = await send('student', 'PATCH', '/api/drill-assignments/1', { practiceDone: false });
+    expect(undone.status).toBe(200);
+    expect((undone.body as any).assignment).toMatchObject({ practiceDone: false, doneAt: null });
+    expect((await send('student', 'PATCH', '/api/drill-assignments/1', { practiceDone: true })).status).toBe(200);
     expect((await send('student', 'PATCH', '/api/drill-assignments/1', { dueDate: '2026-12-31' })).status).toBe(403);
     const moved = await send('coach', 'PATCH', '/api/drill-assignments/1', { dueDate: '2026-02-18' });
     expect(moved.status).toBe(200);

@@ -20,16 +20,17 @@ const swing = (id: number, sessionDate: string, impactLead: number | null, hidde
 });
 
 describe('checkMoves', () => {
-  it('means before the assignment date and after it up to the session; moved = after - before', () => {
-    const swings = [swing(1, '2026-02-01', 60), swing(2, '2026-02-05', 70), swing(3, '2026-02-12', 80), swing(4, '2026-02-17', 86), swing(5, '2026-02-17', 99, true), swing(6, '2026-03-01', 10)];
-    const [m] = checkMoves([{ event: 'impact', measure: 'leadPct' }], swings, '2026-02-11', '2026-02-17');
+  it('means before the assignment date and in this one session; moved = after - before', () => {
+    // session 10 on 2026-02-17 holds swings 4, 5 (hidden) and 7; swing 3 is an earlier session after the assignment
+    const swings = [swing(1, '2026-02-01', 60), swing(2, '2026-02-05', 70), swing(3, '2026-02-12', 80), { ...swing(4, '2026-02-17', 86), sessionId: 10 }, { ...swing(5, '2026-02-17', 99, true), sessionId: 10 }, { ...swing(7, '2026-02-17', 90), sessionId: 10 }, swing(6, '2026-03-01', 10)];
+    const [m] = checkMoves([{ event: 'impact', measure: 'leadPct' }], swings, '2026-02-11', 10);
     expect(m.before).toEqual({ mean: 65, n: 2 }); // (60 + 70) / 2 by hand
-    expect(m.after).toEqual({ mean: 83, n: 2 }); // (80 + 86) / 2; the hidden swing and the later session left out
-    expect(m.moved).toBe(18);
+    expect(m.after).toEqual({ mean: 88, n: 2 }); // (86 + 90) / 2; the hidden swing, the earlier and the later session left out
+    expect(m.moved).toBe(23);
   });
 
   it('no swings on one side: no move', () => {
-    const [m] = checkMoves([{ event: 'impact', measure: 'leadPct' }], [swing(1, '2026-02-20', 80)], '2026-02-11', '2026-02-25');
+    const [m] = checkMoves([{ event: 'impact', measure: 'leadPct' }], [swing(1, '2026-02-20', 80)], '2026-02-11', 1);
     expect(m.before).toBeNull();
     expect(m.moved).toBeNull();
   });

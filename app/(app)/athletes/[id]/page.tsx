@@ -8,16 +8,22 @@ import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
 import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
 import { idParamSchema } from '@/lib/http';
+import { SessionBin } from '@/components/sessions/session-bin';
+import { AccountLinkForm } from '@/components/athletes/account-link-form';
+import { linkedAccount } from '@/lib/athletes/account-link';
+import { Card } from '@/components/ui/card';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
-export default async function AthletePage({ params }: { params: Promise<{ id: string }> }) {
+export default async function AthletePage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const viewer = await requirePageRole('coach', 'student');
   const id = idParamSchema.safeParse((await params).id);
   if (!id.success) notFound();
   const athlete = await findAthleteForViewer(viewer, id.data);
   if (!athlete) notFound();
   const sessions = await listSessionsForAthlete(athlete.id);
+  const binned = idParamSchema.safeParse((await searchParams).binned);
+  const account = viewer.role === 'coach' ? await linkedAccount(athlete.id) : null;
   return (
     <>
       <PageHeader
@@ -44,7 +50,19 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           </div>
         }
       />
+      {viewer.role === 'coach' && (
+        <div className="mb-4">
+          <SessionBin athleteId={athlete.id} justBinned={binned.success ? binned.data : null} />
+        </div>
+      )}
       <AthleteOverview athlete={athlete} sessions={sessions} />
+      {viewer.role === 'coach' && (
+        <div className="mt-6">
+          <Card title="Student account">
+            <AccountLinkForm athleteId={athlete.id} account={account} />
+          </Card>
+        </div>
+      )}
     </>
   );
 }

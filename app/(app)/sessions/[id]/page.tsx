@@ -11,6 +11,8 @@ import { buttonClass } from '@/components/ui/button';
 import { contextLabels, formatDate } from '@/components/ui/format';
 import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
+import { findSession } from '@/lib/db/practice-sessions';
+import { SessionActions } from '@/components/sessions/session-actions';
 import { idParamSchema } from '@/lib/http';
 import { getSessionRecordingsView } from '@/lib/recordings/views';
 import { isMinor } from '@/lib/contracts/athletes';
@@ -27,7 +29,9 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
   if (!view) notFound();
   const athlete = await findAthleteForViewer(viewer, view.session.athleteId);
   if (!athlete) notFound();
-  const context = view.session.context as keyof typeof contextLabels;
+  const session = await findSession(view.session.id);
+  if (!session) notFound();
+  const context = session.context;
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-muted">
@@ -38,7 +42,7 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
       </nav>
       <PageHeader
         title={`${formatDate(view.session.sessionDate)} · ${contextLabels[context] ?? view.session.context}`}
-        subtitle={view.session.location ?? undefined}
+        subtitle={[view.session.location, session.notes].filter(Boolean).join(' · ') || undefined}
         action={
           <span className="flex items-center gap-2">
             <Link href={`/sessions/${view.session.id}/summary`} className={buttonClass('secondary')} data-testid="lesson-summary-link">
@@ -55,9 +59,10 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
         }
       />
       <div className="space-y-6">
+        {viewer.role === 'coach' && <SessionActions session={session} recordingCount={view.recordings.length} />}
         <CoachingCaution />
         {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
-        <SessionRecordingsPanel sessionId={view.session.id} initial={view} />
+        <SessionRecordingsPanel sessionId={view.session.id} initial={view} canEdit={viewer.role === 'coach'} />
         <Card title="Drills before this session">
           <DrillReport sessionId={view.session.id} />
         </Card>

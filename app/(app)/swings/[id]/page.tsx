@@ -8,7 +8,7 @@ import { ProcessingParameters } from '@/components/swings/processing-parameters'
 import type { SwingDetail } from '@/lib/contracts/swings';
 import { SwingWorkbench } from '@/components/swings/swing-workbench';
 import { Badge } from '@/components/ui/badge';
-import { Card, PageHeader } from '@/components/ui/card';
+import { PageHeader } from '@/components/ui/card';
 import { contextLabels, formatDate } from '@/components/ui/format';
 import { requirePageRole } from '@/lib/auth/roles';
 import { getSwingDetail } from '@/lib/db/swings';
@@ -50,7 +50,7 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
       </nav>
       <PageHeader
         title={`Swing ${swing.index}`}
-        subtitle={`${swing.athlete.displayName} · ${swing.recording.filename}, ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s on the recording's time axis${leadFoot ? ` · lead foot ${leadFoot} (${handedness}-handed)` : ''}`}
+        subtitle={`${swing.recording.filename}, ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s of the recording${leadFoot ? ` · lead foot ${leadFoot}` : ''}`}
         action={
           <span className="flex gap-2">
             {swing.hidden && <Badge tone="neutral">Marked as not a swing</Badge>}
@@ -59,13 +59,18 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
           </span>
         }
       />
-      <div className="space-y-4">
+      <div className="space-y-3">
         <CoachingCaution />
         {swing.athlete.dateOfBirth && isMinor(swing.athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={swing.athlete.dateOfBirth} />}
         <SwingWorkbench swingId={swing.id} initial={swing} />
-        <Card title="Processing">
-          <ProcessingParameters parameters={swing.recording.parameters} algorithmVersion={swing.recording.algorithmVersion} />
-        </Card>
+        {viewer.role === 'coach' && (
+          <details className="rounded-lg border border-surface-line bg-surface" data-testid="processing-details">
+            <summary className="flex min-h-11 cursor-pointer items-center px-4 text-sm font-medium text-ink">Processing details</summary>
+            <div className="px-4 pb-4">
+              <ProcessingParameters parameters={swing.recording.parameters} algorithmVersion={swing.recording.algorithmVersion} />
+            </div>
+          </details>
+        )}
       </div>
     </>
   );

@@ -2,6 +2,7 @@ import { requireRole } from '@/lib/auth/roles';
 import { json, NotFoundError, parseId, withErrors } from '@/lib/http';
 import { requireRecording } from '@/lib/auth/access';
 import { getRecordingView } from '@/lib/recordings/views';
+import { binRecording } from '@/lib/sessions/store';
 
 export const dynamic = 'force-dynamic';
 
@@ -14,4 +15,12 @@ export const GET = withErrors(async (_request: Request, { params }: Context) => 
   const recording = await getRecordingView(id);
   if (!recording) throw new NotFoundError('No recording with this id.');
   return json(recording);
+});
+
+// Into the bin (the session's page offers undo; POST /api/recordings/:id/restore within 30 days); GET then answers 404.
+export const DELETE = withErrors(async (_request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach');
+  const id = parseId((await params).id);
+  await requireRecording(viewer, id, 'write');
+  return json(await binRecording(id));
 });

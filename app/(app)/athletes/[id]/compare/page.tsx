@@ -6,7 +6,7 @@ import { CompareView } from '@/components/compare/compare-view';
 import { PageHeader } from '@/components/ui/card';
 import { requirePageRole } from '@/lib/auth/roles';
 import { findAthleteForViewer } from '@/lib/db/athletes';
-import { listSessionsForAthlete } from '@/lib/db/practice-sessions';
+import { setsWithSwings } from '@/lib/compare/service';
 import { idParamSchema } from '@/lib/http';
 
 export const metadata: Metadata = { title: 'Compare sets' };
@@ -17,8 +17,8 @@ export default async function ComparePage({ params }: { params: Promise<{ id: st
   if (!id.success) notFound();
   const athlete = await findAthleteForViewer(viewer, id.data);
   if (!athlete) notFound();
-  // months with sessions, newest first ("this month vs last" = the two newest)
-  const months = [...new Set((await listSessionsForAthlete(athlete.id)).map((s) => s.sessionDate.slice(0, 7)).filter(Boolean))].sort().reverse();
+  // only sets that hold swings: contexts, and months newest first
+  const { contexts, months } = await setsWithSwings(athlete.id);
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-muted">
@@ -27,7 +27,7 @@ export default async function ComparePage({ params }: { params: Promise<{ id: st
       <PageHeader title="Compare two sets of swings" subtitle={`${athlete.displayName}: practice against on course, or one month against another.`} />
       <div className="space-y-4">
         <CoachingCaution />
-        <CompareView athleteId={athlete.id} months={months} />
+        <CompareView athleteId={athlete.id} contexts={contexts} months={months} />
       </div>
     </>
   );

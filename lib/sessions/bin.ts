@@ -1,0 +1,34 @@
+import type { Knex } from 'knex';
+import type { RawFileStore } from '@/lib/storage/types';
+import { BIN_DAYS } from '@/lib/contracts/sessions';
+
+// The sweep of the bin: sessions and recordings deleted more than BIN_DAYS days ago are removed for good, rows first
+// (one transaction; the foreign keys cascade to swings, events, series, labels, notes and jobs), then their raw
+// files. A file left behind by a crash between the two is harmless; a row without its file would not be.
+
+export type SweepResult = { sessions: number; recordings: number; files: number };
+
+export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()): Promise<SweepResult> {
+  const cutoff = new Date(now.getTime() - BIN_DAYS * 24 * 60 * 60 * 1000);
+  const keys: string[] = [];
+  const counts = await db.transaction(async (trx) => {
+    const sessions = (await trx('practice_sessions').whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).forUpdate().select('id')).map((r) => Number(r.id));
+    const recordings = await trx('recordings')
+      .where((q) => {
+        q.where((b) => b.whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff));
+        if (sessions.length > 0) q.orWhereIn('session_id', sessions);
+      })
+      .forUpdate()
+      .select('id', 'storage_key');
+    keys.push(...recordings.map((r) => String(r.storage_key)));
+    if (recordings.length > 0) await trx('recordings').whereIn('id', recordings.map((r) => Number(r.id))).delete();
+    if (sessions.length > 0) await trx('practice_sessions').whereIn('id', sessions).delete();
+    return { sessions: sessions.length, recordings: recordings.length };
+  });
+  let files = 0;
+  for (const key of keys) {
+    await store.remove(key);
+    files += 1;
+  }
+  return { ...counts, files };
+}

@@ -147,6 +147,7 @@ function ChartLayersInner(p: LayerProps) {
           const ev = emph ? valueAt(emph.time ?? p.time, emph.values, m.t) : NaN;
           const row = rows[k] ?? 0;
           const labelY = -box.margin.top + MARGIN.top + LABEL_ROW_PX * (row + 1) - 3;
+          const handle = dragHandle(markers, k);
           return (
             <g
               key={m.name}
@@ -180,8 +181,10 @@ function ChartLayersInner(p: LayerProps) {
                 <circle cx={m.px} cy={y(ev)} r={3.5} fill={CHART_COLOURS.surface} stroke={CHART_COLOURS.ink} strokeWidth={1.5} data-emphasis={m.name} />
               )}
               {p.editable && (
-                // 44 px wide: a finger-sized target on a tablet (WCAG 2.5.5 target size)
-                <rect data-drag-event={m.name} x={m.px - 22} y={0} width={44} height={h} fill="transparent" style={{ cursor: 'ew-resize' }} />
+                // up to 44 px wide: a finger-sized target on a tablet (WCAG 2.5.5 target size), cut at the midpoint to a
+                // neighbouring marker so that two close events (top and transition are often 30-60 ms apart) each
+                // keep the half nearer to their own line instead of the later one covering the earlier
+                <rect data-drag-event={m.name} x={handle.left} y={0} width={handle.width} height={h} fill="transparent" style={{ cursor: 'ew-resize' }} />
               )}
             </g>
           );
@@ -189,6 +192,18 @@ function ChartLayersInner(p: LayerProps) {
       </g>
     </>
   );
+}
+
+const HANDLE_HALF_PX = 22;
+
+/** The drag target of marker k: 44 px centred on its line, cut at the midpoints to its neighbours (at least 2 px). */
+export function dragHandle(markers: readonly { px: number }[], k: number): { left: number; width: number } {
+  const px = markers[k].px;
+  const left = k > 0 ? Math.max(px - HANDLE_HALF_PX, (markers[k - 1].px + px) / 2) : px - HANDLE_HALF_PX;
+  const right = k < markers.length - 1 ? Math.min(px + HANDLE_HALF_PX, (px + markers[k + 1].px) / 2) : px + HANDLE_HALF_PX;
+  // at least 1 px either side of the line, even where two markers coincide
+  const from = Math.min(left, px - 1);
+  return { left: from, width: Math.max(right, px + 1) - from };
 }
 
 const sameArray = <T,>(a: readonly T[] | undefined, b: readonly T[] | undefined) =>

@@ -149,7 +149,7 @@ describe('the swing viewer from the keyboard alone', () => {
     const expectedTop = Math.round((eventTime(swing, 'top') + direction * 2 * SAMPLE_S) * 1000) / 1000;
     const unsaved = page.getByTestId('unsaved-moves');
     await unsaved.waitFor();
-    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(expectedTop - swing.startS).toFixed(2)} s`);
+    expect(await unsaved.textContent()).toBe(`Unsaved: Top → ${(expectedTop - eventTime(swing, 'address')).toFixed(2)} s`);
 
     await tabTo('[data-testid="event-edit-bar"] button:nth-of-type(2)'); // "Save corrections"
     expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Save corrections');

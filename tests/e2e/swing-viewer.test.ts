@@ -94,9 +94,11 @@ describe('the swing viewer', () => {
 
     // Screen pixels per second from two markers whose times the API gives, then a real pointer drag.
     const chart = coachPage.locator('[data-chart="swing-lead-share"]');
+    // the marker's own line (its drag target is cut at the midpoint to a close neighbour, so not centred on it)
     const centre = async (name: string) => {
       const box = (await chart.locator(`[data-drag-event="${name}"]`).boundingBox())!;
-      return { x: box.x + box.width / 2, y: box.y + box.height / 2 };
+      const line = (await chart.locator(`[data-event-marker="${name}"] line`).boundingBox())!;
+      return { x: line.x + line.width / 2, y: box.y + box.height / 2 };
     };
     const top = await centre('top');
     const impact = await centre('impact');

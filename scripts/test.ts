@@ -15,6 +15,10 @@ const root = process.cwd();
 const E2E_CONFIG = 'vitest.e2e.config.ts';
 const VITEST_BIN = join('node_modules', 'vitest', 'vitest.mjs');
 const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+// `npm test -- tests/http/sessions tests/lib/jobs` runs only the test files whose paths contain one of the filters
+// (vitest's own file filter), in both vitest runs, with the same database, build and server. No filter: everything.
+const FILTERS = process.argv.slice(2).filter((arg) => !arg.startsWith('-'));
+const FILTER_ARGS = FILTERS.length > 0 ? [...FILTERS, '--passWithNoTests'] : [];
 
 interface Counts {
   passed: number;
@@ -49,7 +53,7 @@ async function runVitest(label: string, args: string[], env: NodeJS.ProcessEnv, 
   const code = await new Promise<number>((resolve) => {
     const child = spawn(
       process.execPath,
-      [VITEST_BIN, 'run', ...args, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
+      [VITEST_BIN, 'run', ...args, ...FILTER_ARGS, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`],
       { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit'] },
     );
     track(child);

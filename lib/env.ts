@@ -35,10 +35,19 @@ export const serverEnvSchema = z
     // A running job whose heartbeat is older than this belonged to a worker that died; it is claimed again.
     JOB_LOCK_TIMEOUT_S: z.coerce.number().int().min(5).default(60),
     JOB_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(3),
+    // Research exports: the key of the players' pseudonymous codes (HMAC-SHA256; scripts/start.ts generates one into
+    // .data/research-code-secret). Changing it changes every code.
+    RESEARCH_CODE_SECRET: z.string().min(32, { error: 'must be at least 32 characters' }).optional(),
+    // A local-rule choice: below this age at a session's date, a guardian's consent is needed as well (UNCRC Art. 1
+    // gives 18; defer to the rules where the academy works and to the study's ethics board).
+    RESEARCH_ADULT_AGE: z.coerce.number().int().min(13).max(21).default(18),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.NEXTAUTH_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
       ctx.addIssue({ code: 'custom', path: ['NEXTAUTH_SECRET'], message: 'is required in production (npm start generates one)' });
+    }
+    if (env.NODE_ENV === 'production' && !env.RESEARCH_CODE_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
+      ctx.addIssue({ code: 'custom', path: ['RESEARCH_CODE_SECRET'], message: 'is required in production (npm start generates one)' });
     }
     if (env.STORAGE_S3_BUCKET && !!env.STORAGE_S3_ACCESS_KEY_ID !== !!env.STORAGE_S3_SECRET_ACCESS_KEY) {
       ctx.addIssue({

@@ -5,7 +5,7 @@ import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo/scenario';
 import { migrateLatest, seedDemoIfEmptyAt, seedDemoRecordingsAt } from './lib/database';
 import { startLocalFakes } from './lib/local-fakes';
 import { mariadbConfigFromEnv, startMariadb } from './lib/mariadb';
-import { ensureNextauthSecret } from './lib/nextauth-secret';
+import { ensureNextauthSecret, ensureResearchCodeSecret } from './lib/nextauth-secret';
 import { buildNeededBecause, nextEnv, runNextBuild, startNextServer, type NextServer } from './lib/next-server';
 
 const root = process.cwd();
@@ -43,6 +43,7 @@ async function main(): Promise<number> {
     ...fakes.env,
     DATABASE_URL: databaseUrl,
     NEXTAUTH_SECRET: ensureNextauthSecret(root),
+    RESEARCH_CODE_SECRET: ensureResearchCodeSecret(root),
     NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? url,
     PORT: String(port),
   });

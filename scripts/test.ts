@@ -96,7 +96,7 @@ async function main(): Promise<void> {
 
   // A secret for this run only; the e2e server signs sessions with it.
   const secret = randomBytes(32).toString('hex');
-  const baseEnv = nextEnv({ DATABASE_URL: databaseUrl, NEXTAUTH_SECRET: secret, CHROMIUM_PATH });
+  const baseEnv = nextEnv({ DATABASE_URL: databaseUrl, NEXTAUTH_SECRET: secret, RESEARCH_CODE_SECRET: randomBytes(32).toString('hex'), CHROMIUM_PATH });
 
   banner('vitest: signal + integration');
   await runVitest('unit', [], { ...baseEnv, NODE_ENV: 'test' }, reportDir);

@@ -8,6 +8,9 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'export_audit',
+  'api_tokens',
+  'consent_records',
   'drill_assignments',
   'drills',
   'bands',

@@ -25,6 +25,7 @@ export async function startThrowawayApp(root: string): Promise<ThrowawayApp> {
       STORAGE_DIR: join(database.config.dir, 'uploads'),
       DATABASE_URL: database.databaseUrl,
       NEXTAUTH_SECRET: randomBytes(32).toString('hex'),
+      RESEARCH_CODE_SECRET: randomBytes(32).toString('hex'),
       ...fakes.env,
       NEXTAUTH_URL: `http://127.0.0.1:${port}`,
       PORT: String(port),

@@ -31,6 +31,10 @@ const APP_TABLES = [
   // the swing finder's rejected candidates and the coach's promotions
   'recording_candidates',
   'candidate_promotions',
+  // research: consent history, personal API tokens, the export audit
+  'consent_records',
+  'api_tokens',
+  'export_audit',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

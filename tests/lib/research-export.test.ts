@@ -76,7 +76,7 @@ describe('phase-table export', () => {
     expect(wide[0].session_week).toBe('2026-W07'); // session 1 of the demo is on 2026-02-10
     expect(wide[0].age_band).toBe('30-34'); // born 1994-03-12: 31 on 2026-02-10
 
-    const personal: string[] = [];
+    const personal: unknown[] = [];
     for (const a of await db('athletes').select('display_name', 'home_club', 'date_of_birth')) personal.push(a.display_name, a.home_club, a.date_of_birth);
     for (const u of await db('users').select('name', 'email')) personal.push(u.name, u.email);
     for (const p of await db('practice_sessions').select('location', 'notes', 'session_date')) personal.push(p.location, p.notes, p.session_date);

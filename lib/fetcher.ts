@@ -40,7 +40,7 @@ export function fetchJson<S extends z.ZodType>(schema: S) {
 /** Send JSON (POST/PATCH/DELETE) and validate the response. */
 export async function sendJson<S extends z.ZodType>(
   url: string,
-  method: 'POST' | 'PATCH' | 'DELETE',
+  method: 'POST' | 'PUT' | 'PATCH' | 'DELETE',
   body: unknown,
   schema: S,
 ): Promise<z.infer<S>> {

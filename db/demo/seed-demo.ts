@@ -2,6 +2,7 @@
 // ids inside one transaction, so running it twice gives identical rows.
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
+import { seedDemoConsents } from './consents';
 import { seedDemoDrills } from './drills';
 import { seedDemoTargets } from './targets';
 import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS } from './scenario';
@@ -79,6 +80,7 @@ export async function seedDemo(knex: Knex): Promise<void> {
     );
     await seedDemoTargets(trx, DEMO_ACADEMY.id);
     await seedDemoDrills(trx, DEMO_ACADEMY.id);
+    await seedDemoConsents(trx);
   });
 }
 

@@ -12,6 +12,7 @@ import { SessionBin } from '@/components/sessions/session-bin';
 import { AccountLinkForm } from '@/components/athletes/account-link-form';
 import { linkedAccount } from '@/lib/athletes/account-link';
 import { Card } from '@/components/ui/card';
+import { ConsentPanel } from '@/components/research/consent-panel';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
@@ -63,6 +64,11 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
           </Card>
         </div>
       )}
+      <div className="mt-6">
+        <Card title="Research consent">
+          <ConsentPanel athleteId={athlete.id} self={viewer.role === 'student'} />
+        </Card>
+      </div>
     </>
   );
 }

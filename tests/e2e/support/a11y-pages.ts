@@ -199,5 +199,18 @@ export const A11Y_CHECKS: A11yCheck[] = [
   },
 
   // researcher
-  { name: 'researcher home', route: '/', as: 'researcher', path: () => '/' },
+  { name: 'researcher home', route: '/', as: 'researcher', path: () => '/', ready: (page) => page.getByTestId('cohort-count').filter({ hasText: /swing/ }).waitFor() },
+  {
+    name: 'researcher home, a narrow cohort and a new token',
+    route: '/',
+    as: 'researcher',
+    path: () => '/',
+    act: async (page) => {
+      await page.getByLabel('Club group').selectOption('driver');
+      await page.getByTestId('small-cohort-note').waitFor();
+      await page.getByLabel('Token name').fill('a11y check');
+      await page.getByRole('button', { name: 'Make a token' }).click();
+      await page.getByTestId('new-token').waitFor();
+    },
+  },
 ];

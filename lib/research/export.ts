@@ -17,10 +17,10 @@ export function scopeOf(viewer: Exporter): CohortScope {
   return { kind: viewer.role === 'coach' ? 'coach' : 'researcher', academyId: viewer.academyId, userId: viewer.id };
 }
 
-/** The filters as the audit keeps them: only the ones set. */
+/** The filters as the audit keeps them: only the ones set (partial swings 'include' is the default, left out). */
 export function filterRecord(filter: CohortFilter): Record<string, string | number> {
   const out: Record<string, string | number> = {};
-  for (const [k, v] of Object.entries(filter)) if (v !== undefined && v !== null && v !== '') out[k] = v as string | number;
+  for (const [k, v] of Object.entries(filter)) if (v !== undefined && v !== null && v !== '' && !(k === 'partial' && v === 'include')) out[k] = v as string | number;
   return out;
 }
 

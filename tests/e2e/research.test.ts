@@ -73,8 +73,9 @@ describe('the researcher’s page', () => {
     expect(parsed.meta.fields?.slice(0, 10)).toEqual(['player_code', 'session_week', 'context', 'club', 'swing_id', 'event_or_phase', 'measure', 'value', 'unit', 'algorithm_version']);
     expect(parsed.data.length % 47).toBe(0);
     expect(new Set(parsed.data.map((r) => r.club_group))).toEqual(new Set(['irons'])); // the page's filter went with it
-    await page.getByTestId('export-log').locator('tbody tr', { hasText: 'long CSV' }).first().waitFor({ timeout: 15_000 });
-    expect(await page.getByTestId('export-log').locator('tbody tr').first().textContent()).toContain('clubGroup=irons');
+    // the log refreshes every 5 s; the newest row is this download, with the page's filter
+    await page.getByTestId('export-log').locator('tbody tr').first().filter({ hasText: 'clubGroup=irons' }).waitFor({ timeout: 20_000 });
+    expect(await page.getByTestId('export-log').locator('tbody tr').first().textContent()).toMatch(/signed in.*long CSV.*clubGroup=irons.*✓ complete/);
     await page.screenshot({ path: screenshotPath('e2e-research-downloads-1280x800'), fullPage: true });
     await page.setViewportSize({ width: 1024, height: 768 });
     await page.screenshot({ path: screenshotPath('e2e-research-1024x768'), fullPage: false });

@@ -137,7 +137,8 @@ export function ResearchWorkbench() {
 
       <Card title="Preview">
         <p className="mb-3 text-sm text-ink-muted">The first {cohort?.preview.rows.length ?? 0} swings, a few columns of the wide table; the downloads hold every column.</p>
-        <div className="overflow-x-auto">
+        {/* focusable so a keyboard can scroll the table sideways (WCAG 2.1.1) */}
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Preview table, scrolls sideways">
           <table className="min-w-full text-left text-sm" data-testid="preview-table">
             <caption className="sr-only">Preview of the cohort’s phase table, one row per swing</caption>
             <thead>
@@ -289,7 +290,7 @@ function ExportLog() {
   const { data } = useSWR('/api/exports/audit', fetchJson(exportAuditSchema), { refreshInterval: 5000 });
   return (
     <Card title="Export log">
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Export log, scrolls sideways">
         <table className="min-w-full text-left text-sm" data-testid="export-log">
           <caption className="sr-only">Your exports, newest first</caption>
           <thead>

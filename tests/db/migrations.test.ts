@@ -31,6 +31,8 @@ const APP_TABLES = [
   // the swing finder's rejected candidates and the coach's promotions
   'recording_candidates',
   'candidate_promotions',
+  // the stored viewer payload of each swing (GET /api/swings/:id)
+  'swing_payloads',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

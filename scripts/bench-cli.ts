@@ -6,22 +6,22 @@
 import { spawnSync } from 'node:child_process';
 import { createWriteStream, existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { once } from 'node:events';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { buildBundles } from './build-bundles.mjs';
 import { DISTRACTORS, generateSession } from '../lib/signal/synthetic';
 
 const TARGET = { ratio: 0.5, rssMb: 400 }; // from the issue
-const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 5);
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const PYTHON = process.env.BENCH_PYTHON ?? '/usr/bin/python3';
 const TIME = '/usr/bin/time';
 const root = process.cwd();
 
 type Run = { wallS: number; rssMb: number; stdout: string };
 
-function timed(cmd: string, args: string[]): Run {
+function timed(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env): Run {
   const stats = join(tmpdir(), `stanceline-bench-time-${process.pid}`);
-  const r = spawnSync(TIME, ['-f', '%e %M', '-o', stats, cmd, ...args], { cwd: root, encoding: 'utf8', maxBuffer: 64 << 20 });
+  const r = spawnSync(TIME, ['-f', '%e %M', '-o', stats, cmd, ...args], { cwd: root, encoding: 'utf8', maxBuffer: 64 << 20, env });
   if (r.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed (${r.status}): ${r.stderr}`);
   const [wall, rssKb] = readFileSync(stats, 'utf8').trim().split('\n').at(-1)!.split(' ').map(Number);
   rmSync(stats, { force: true });
@@ -54,10 +54,14 @@ async function main(): Promise<void> {
     const layout = join(root, 'lib', 'signal', 'layouts', 'pair-8.json');
 
     const ours: Run[] = [];
+    const oneThread: Run[] = [];
     const theirs: Run[] = [];
+    // the command as shipped (this file is over 16 MB: read on two threads) and with the two-thread reader off
+    const off = { ...process.env, STANCELINE_PARALLEL_PARSE_MIN_BYTES: String(Number.MAX_SAFE_INTEGER) };
     for (let i = 0; i < ROUNDS; i++) {
       ours.push(timed('npm', ['run', '-s', 'analyze', '--', file]));
       theirs.push(timed(PYTHON, ['scripts/bench/pandas_scipy_analysis.py', file, layout]));
+      oneThread.push(timed('npm', ['run', '-s', 'analyze', '--', file], off));
     }
     const swings = (JSON.parse(ours[0].stdout) as { swings: unknown[] }).swings.length;
     const py = JSON.parse(theirs[0].stdout) as { samples: number };
@@ -67,6 +71,9 @@ async function main(): Promise<void> {
     console.log(`\n## 60-minute lesson, ${py.samples} samples x 16 sensors, ${ROUNDS} alternating rounds (median wall time)`);
     console.log(`npm run -s analyze:     ${a.toFixed(2)} s   runs ${ours.map((r) => r.wallS.toFixed(2)).join(', ')}   (${swings} swings)`);
     console.log(`pandas + scipy script:  ${b.toFixed(2)} s   runs ${theirs.map((r) => r.wallS.toFixed(2)).join(', ')}`);
+    const one = median(oneThread.map((r) => r.wallS));
+    console.log(`analyze, one thread:    ${one.toFixed(2)} s   runs ${oneThread.map((r) => r.wallS.toFixed(2)).join(', ')}   (ratio ${(one / b).toFixed(2)}; two threads pay off when ${a.toFixed(2)} < ${one.toFixed(2)})`);
+    console.log(`load average at the end: ${loadavg().map((l) => l.toFixed(1)).join(' ')} on ${availableParallelism()} cores`);
     console.log(`ratio analyze / python: ${(a / b).toFixed(2)}   (target <= ${TARGET.ratio}: ${a / b <= TARGET.ratio ? 'met' : 'NOT met'})`);
     console.log(`analyze peak RSS:       ${rss.toFixed(0)} MB   (target <= ${TARGET.rssMb} MB: ${rss <= TARGET.rssMb ? 'met' : 'NOT met'}); python ${Math.max(...theirs.map((r) => r.rssMb)).toFixed(0)} MB`);
 

@@ -7,7 +7,8 @@ import { generateSession } from '@/lib/signal/synthetic';
 import { BASE } from './helpers';
 
 // `npm run analyze` runs the esbuild bundle (.build/analyze.mjs through scripts/analyze.mjs); the source version is
-// scripts/analyze.ts under tsx. Both must print the same bytes, exit the same way and write the same series file.
+// scripts/analyze.ts under tsx. Both must print the same bytes, exit the same way and write the same series file;
+// so must the compiled command with its two-thread reader (scripts/analyze-parallel.ts) forced on.
 const ROOT = join(__dirname, '..', '..');
 const dir = mkdtempSync(join(tmpdir(), 'stanceline-cli-compiled-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -17,9 +18,11 @@ beforeAll(() => {
   expect(r.status, r.stderr).toBe(0);
 });
 
-function run(kind: 'source' | 'compiled', args: string[]) {
+function run(kind: 'source' | 'compiled' | 'two-threads', args: string[]) {
   const entry = kind === 'source' ? ['--import', 'tsx', 'scripts/analyze.ts'] : ['scripts/analyze.mjs'];
-  const r = spawnSync(process.execPath, [...entry, ...args], { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 << 20 });
+  // two-threads: the compiled command with its two-thread reader forced on for small files, and a trace line
+  const env = kind === 'two-threads' ? { ...process.env, STANCELINE_PARALLEL_PARSE_MIN_BYTES: '0', STANCELINE_PARALLEL_PARSE_TRACE: '1' } : process.env;
+  const r = spawnSync(process.execPath, [...entry, ...args], { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 << 20, env });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -35,6 +38,26 @@ const bad = join(dir, 'bad.csv');
   cells[2] = '1.2.3';
   lines[30] = cells.join(',');
   writeFileSync(bad, lines.join('\n'));
+}
+const TRACE = /^analyze: read on two threads, cut at byte \d+\n/m;
+// the row just after the middle byte (where the two-thread reader cuts) goes back in time, and a bad cell near the end
+const backAtCut = join(dir, 'back-at-cut.csv');
+const badLate = join(dir, 'bad-late.csv');
+{
+  const text = session.csv();
+  const mid = text.indexOf('\n', text.length >> 1) + 1;
+  const lines = text.split('\n');
+  const k = text.slice(0, mid).split('\n').length - 1; // index of the first line after the cut
+  const copy = [...lines];
+  const cells = copy[k].split(',');
+  cells[0] = copy[k - 1].split(',')[0];
+  copy[k] = cells.join(',');
+  writeFileSync(backAtCut, copy.join('\n'));
+  const late = [...lines];
+  const c2 = late[late.length - 5].split(',');
+  c2[4] = '--';
+  late[late.length - 5] = c2.join(',');
+  writeFileSync(badLate, late.join('\n'));
 }
 const gait = (name: string) => [
   `tests/fixtures/gaitpdb/${name}`,
@@ -66,11 +89,30 @@ describe('the compiled analyze command', () => {
     expect(compiled.stdout).toBe(source.stdout);
   });
 
+  it.each([
+    ['generated golf session', [golf], true],
+    ['left-handed, other cutoff', [unmarked, '--handedness', 'left', '--cutoff-hz=12'], true],
+    ['a row going back in time just after the cut', [backAtCut], false],
+    ['a bad cell near the end', [badLate], false],
+    ['a malformed file', [bad], false],
+  ] as [string, string[], boolean][])('read on two threads, %s: the same output as the source version', (_label, args, joined) => {
+    const source = run('source', args);
+    const two = run('two-threads', args);
+    expect(TRACE.test(two.stderr)).toBe(joined); // joined halves, or the one-thread reader after a problem
+    expect(two.code).toBe(source.code);
+    expect(two.stderr.replace(TRACE, '')).toBe(source.stderr);
+    expect(two.stdout).toBe(source.stdout);
+    if (!joined) expect(source.code).toBe(1);
+  });
+
   it('writes a byte-identical --series file', () => {
     const a = join(dir, 'a.csv');
     const b = join(dir, 'b.csv');
     expect(run('source', [golf, '--series', a]).code).toBe(0);
     expect(run('compiled', [golf, '--series', b]).code).toBe(0);
     expect(readFileSync(b).equals(readFileSync(a))).toBe(true);
+    const c = join(dir, 'c.csv');
+    expect(run('two-threads', [golf, '--series', c]).code).toBe(0);
+    expect(readFileSync(c).equals(readFileSync(a))).toBe(true);
   });
 });

@@ -6,11 +6,23 @@
 // that does not fall between two data rows, an import profile) returns null and the caller reads the file the usual
 // way, on one thread, so its output and its error messages stay exactly those of the one-thread reader.
 import { closeSync, openSync, readSync, statSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
 import { Worker, workerData, parentPort } from 'node:worker_threads';
 import { createRecordingReader, type RawRecording } from '@/lib/signal';
 
 /** Below this size one thread is as fast (a worker costs ~0.1-0.2 s to start and load the command). */
 export const PARALLEL_MIN_BYTES = Number(process.env.STANCELINE_PARALLEL_PARSE_MIN_BYTES ?? 16 * 1024 * 1024);
+
+/**
+ * A second thread only pays when a core is idle: on a busy machine it adds CPU (~0.4 s for the 60-minute file) and
+ * saves no wall time (npm run bench:signal prints both). Idle here = the 1-minute load average below the cores
+ * minus one (a rule of thumb, common practice); the size threshold set to 0 (tests) skips this check.
+ */
+function coreIsFree(): boolean {
+  if (process.env.STANCELINE_PARALLEL_PARSE_MIN_BYTES === '0') return true;
+  const cores = availableParallelism();
+  return cores >= 2 && loadavg()[0] < cores - 1;
+}
 
 type Half = { path: string; start: number; end: number; prefix: string };
 type HalfResult = { ok: true; raw: RawRecording } | { ok: false };
@@ -70,7 +82,7 @@ export async function readParallel(path: string, workerUrl: URL): Promise<RawRec
   // the source version under tsx: node 20 does not hand tsx's loader to worker threads, so one thread reads
   if (workerUrl.pathname.endsWith('.ts')) return null;
   const size = statSync(path).size;
-  if (size < PARALLEL_MIN_BYTES) return null;
+  if (size < PARALLEL_MIN_BYTES || !coreIsFree()) return null;
   // the cut: just after the first newline at or after the middle (a newline byte never sits inside a UTF-8 character)
   const probe = readRange(path, size >> 1, Math.min(size, (size >> 1) + (1 << 16)));
   const nl = probe.indexOf(10);

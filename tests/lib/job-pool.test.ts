@@ -4,6 +4,9 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { buildBundle } from '../../scripts/build-bundles.mjs';
 import { createTaskPool, defaultThreads, type TaskRunner } from '@/lib/jobs/pool';
 import { drainQueue } from '@/lib/jobs/worker';
+import { closeDb } from '@/lib/db/client';
+import { promoteCandidate } from '@/lib/recordings/promote';
+import { getRecordingView } from '@/lib/recordings/views';
 import { generateSession } from '@/lib/signal/synthetic';
 import { createLocalStore } from '@/lib/storage';
 import { insertRecording, resetDemo, tempDir, testDb } from './support/recordings';
@@ -28,9 +31,10 @@ afterAll(async () => {
   await pool?.close();
   await resetDemo(db);
   await db.destroy();
+  await closeDb(); // promoteCandidate and getRecordingView use the app's client
 });
 
-const PER_ROW = new Set(['id', 'recording_id', 'swing_id', 'storage_key', 'created_at', 'updated_at', 'processed_at', 'filename', 'sha256']);
+const PER_ROW = new Set(['id', 'recording_id', 'swing_id', 'storage_key', 'created_at', 'updated_at', 'processed_at', 'filename', 'sha256', 'built_at']);
 const strip = (row: Record<string, unknown>) => Object.fromEntries(Object.entries(row).filter(([k]) => !PER_ROW.has(k)));
 
 /** Everything processing stored for one recording, without ids and timestamps. */
@@ -48,6 +52,7 @@ async function stored(recordingId: number) {
       values: (await of('swing_event_values', ['event'])).map(strip),
       phases: (await of('swing_phase_metrics', ['phase'])).map(strip),
       series: (await of('swing_series', ['swing_id'])).map(strip),
+      payload: (await of('swing_payloads', ['swing_id'])).map(strip), // the viewer's stored part
     });
   }
   return { recording, job, series: series.map(strip), swings: perSwing };
@@ -94,6 +99,24 @@ describe('analysis in worker threads', () => {
     const profile = JSON.parse(readFileSync('tests/fixtures/profiles/gaitpdb.json', 'utf8'));
     const { main, thread } = await both(readFileSync('tests/fixtures/gaitpdb/GaCo01_01.txt'), { layout: { custom: layout }, profile });
     expect(main.recording.status).toBe('ready');
+    expect(thread).toEqual(main);
+  });
+
+  it('a coach’s promoted candidate (passed to the thread with the bytes): the same stored rows', async () => {
+    // walking before each swing gives rejected candidates (tests/lib/candidate-promotion.test.ts)
+    const golf = generateSession({ seed: 17, sampleRateHz: 100, sensorsPerFoot: 8, units: 'N', handedness: 'right', stanceWidthMm: 400, swings: 2, withMarker: false, distractors: ['walk'] }).csv();
+    const run = async (name: string, runner?: TaskRunner) => {
+      const { recordingId } = await insertRecording(db, store, golf, {}, `${name}.csv`);
+      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner })).toBe(1);
+      const candidate = (await getRecordingView(recordingId))!.candidates[0];
+      await promoteCandidate(recordingId, 2, { timeS: candidate.timeS });
+      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner })).toBe(1);
+      await db('recordings').where({ id: recordingId }).update({ sha256: name === 'main' ? '0'.repeat(64) : '1'.repeat(64) });
+      return stored(recordingId);
+    };
+    const main = await run('main');
+    const thread = await run('thread', pool);
+    expect(main.swings.filter((s) => s.swing.promoted !== null)).toHaveLength(1);
     expect(thread).toEqual(main);
   });
 

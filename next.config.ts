@@ -16,8 +16,11 @@ const securityHeaders = [
 const nextConfig: NextConfig = {
   poweredByHeader: false,
   reactStrictMode: true,
-  // knex loads database drivers with dynamic require(); bundling it breaks that, so keep it external.
-  serverExternalPackages: ['knex', 'mysql2', 'bcryptjs'],
+  // gzip for every response the client accepts it for, route handlers included (GET /api/swings/:id relies on it)
+  compress: true,
+  // knex loads database drivers with dynamic require(); bundling it breaks that, so keep it external. piscina
+  // starts its own worker script from its package folder, which only works unbundled.
+  serverExternalPackages: ['knex', 'mysql2', 'bcryptjs', 'piscina'],
   async headers() {
     return [
       { source: '/:path*', headers: securityHeaders },

@@ -32,6 +32,8 @@ export const serverEnvSchema = z
     // The processing worker inside each app process; WORKER_ENABLED=false leaves the queue to other instances.
     WORKER_ENABLED: z.enum(['true', 'false'], { error: 'must be true or false' }).default('true'),
     WORKER_POLL_MS: z.coerce.number().int().min(50).default(1000),
+    // Worker threads of this process's job pool; unset = the cores minus one, at least 1 (lib/jobs/pool.ts).
+    ANALYSIS_THREADS: z.coerce.number({ error: 'must be a whole number >= 1' }).int({ error: 'must be a whole number >= 1' }).min(1, { error: 'must be a whole number >= 1' }).max(64).optional(),
     // A running job whose heartbeat is older than this belonged to a worker that died; it is claimed again.
     JOB_LOCK_TIMEOUT_S: z.coerce.number().int().min(5).default(60),
     JOB_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(3),

@@ -5,6 +5,7 @@
 // A usage error (unknown option, bad option value): one line on stderr plus the usage, exit 2.
 import { createReadStream, createWriteStream, readFileSync } from 'node:fs';
 import { once } from 'node:events';
+import { isMainThread } from 'node:worker_threads';
 import { z } from 'zod';
 import {
   analyzeRecording,
@@ -19,6 +20,7 @@ import {
   type ImportProfile,
   type SensorLayout,
 } from '@/lib/signal';
+import { readParallel, runParseWorker } from './analyze-parallel';
 
 const USAGE =
   'usage: npm run -s analyze -- FILE [--layout LAYOUT.json] [--profile PROFILE.json] [--handedness right|left] ' +
@@ -93,16 +95,9 @@ async function run(args: Args): Promise<AnalysisOutput> {
   const profile: ImportProfile | undefined = args.profile ? parseProfile(readJson(args.profile, 'profile')) : undefined;
   let layout: SensorLayout | undefined = args.layout ? parseLayout(readJson(args.layout, 'layout')) : undefined;
 
-  const reader = createRecordingReader({ profile });
-  try {
-    for await (const chunk of createReadStream(args.file, { encoding: 'utf8', highWaterMark: 1 << 20 })) {
-      reader.push(chunk as string);
-    }
-  } catch (e) {
-    if (e instanceof SignalInputError) throw e;
-    throw new SignalInputError('unreadable', `cannot read ${args.file}: ${(e as Error).message}`);
-  }
-  const raw = reader.end();
+  // a large file without a profile is read on two threads when that works out (scripts/analyze-parallel.ts); the
+  // one-thread reader otherwise, and for every error, so messages stay exactly its own
+  const raw = (!profile && (await readParallel(args.file, new URL(import.meta.url)).catch(() => null))) || (await readOneThread(args.file, profile));
 
   if (!layout) {
     const id = raw.metadata.layout;
@@ -115,6 +110,19 @@ async function run(args: Args): Promise<AnalysisOutput> {
     stanceWidthMm: args.stanceWidthMm,
     cutoffHz: args.cutoffHz,
   });
+}
+
+async function readOneThread(file: string, profile: ImportProfile | undefined) {
+  const reader = createRecordingReader({ profile });
+  try {
+    for await (const chunk of createReadStream(file, { encoding: 'utf8', highWaterMark: 1 << 20 })) {
+      reader.push(chunk as string);
+    }
+  } catch (e) {
+    if (e instanceof SignalInputError) throw e;
+    throw new SignalInputError('unreadable', `cannot read ${file}: ${(e as Error).message}`);
+  }
+  return reader.end();
 }
 
 async function writeSeries(path: string, out: AnalysisOutput): Promise<void> {
@@ -165,6 +173,9 @@ async function main(): Promise<number> {
   }
 }
 
-main().then((code) => {
-  process.exitCode = code;
-});
+// The same file is the worker thread that reads the second half of a large recording (scripts/analyze-parallel.ts).
+if (isMainThread) {
+  main().then((code) => {
+    process.exitCode = code;
+  });
+} else runParseWorker();

@@ -38,7 +38,7 @@ export function RosterBrowser({ initial, initialFilters }: { initial: AthleteSum
   const initialQuery = toQueryString(initialFilters);
 
   const { data, error, isLoading } = useSWR(`/api/athletes${query ? `?${query}` : ''}`, fetchAthletes, {
-    fallbackData: query === initialQuery ? { athletes: initial } : undefined,
+    fallbackData: query === initialQuery ? { athletes: initial, page: { offset: 0, limit: null, total: initial.length, nextOffset: null } } : undefined,
     keepPreviousData: true,
     revalidateOnMount: true,
   });

@@ -14,7 +14,7 @@ const fetchSwing = fetchJson(swingViewResponseSchema);
 export function useOverlay(id: number | null): { overlay: OverlayTrace | null; loading: boolean; error: unknown } {
   const { data, error, isLoading } = useSWR(id === null ? null : swingUrl(id), fetchSwing, { revalidateOnFocus: false });
   const events = data ? eventRecord(data.swing.events) : null;
-  const overlay = data && events && data.swing.series.time.length > 1 ? { label: `Swing ${data.swing.index} (${data.swing.session.sessionDate})`, series: traceSeries(data.swing.series), events } : null;
+  const overlay = data && events && data.swing.series.time.count > 1 ? { label: `Swing ${data.swing.index} (${data.swing.session.sessionDate})`, series: traceSeries(data.swing.series), events } : null;
   return { overlay, loading: isLoading, error };
 }
 

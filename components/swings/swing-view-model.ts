@@ -2,13 +2,20 @@
 // typed arrays, events as a record). Pure: used by the client viewer and the server-rendered lesson summary.
 import type { SensorFrames, SwingEvents, TraceSeries } from '@/components/charts';
 import type { SensorLayout } from '@/lib/signal/types';
-import { eventNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
+import { eventNames, type SwingDetail, type SwingView, type TimeAxis } from '@/lib/contracts/swings';
 
 const toArray = (a: (number | null)[]) => Float64Array.from(a, (v) => (v === null ? NaN : v));
 
+/** The sample times of a uniform axis, rounded to 0.1 ms. */
+export function timeAxis(axis: TimeAxis): Float64Array {
+  const out = new Float64Array(axis.count);
+  for (let i = 0; i < axis.count; i++) out[i] = Math.round((axis.start + i * axis.step) * 1e4) / 1e4;
+  return out;
+}
+
 export function traceSeries(s: SwingView['series']): TraceSeries {
   return {
-    time: Float64Array.from(s.time),
+    time: timeAxis(s.time),
     leadPct: toArray(s.leadPct),
     leadHeelPct: toArray(s.leadHeelPct),
     trailHeelPct: toArray(s.trailHeelPct),

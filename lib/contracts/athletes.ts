@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageSchema } from './pagination';
 
 // The athletes API's contract. Requests: one schema for the athlete form (client, via zodResolver) and for
 // POST/PATCH /api/athletes (server). Responses: lib/db/athletes.ts returns these types, the client parses them.
@@ -73,7 +74,8 @@ export const athleteSummarySchema = z.object({
   lastSession: z.object({ date: z.string(), context: z.enum(sessionContextValues) }).nullable(),
 });
 
-export const athleteListResponseSchema = z.object({ athletes: z.array(athleteSummarySchema) });
+/** GET /api/athletes: the roster in name order (?limit=&offset=; `page` says which part). */
+export const athleteListResponseSchema = z.object({ athletes: z.array(athleteSummarySchema), page: pageSchema });
 export const athleteResponseSchema = z.object({ athlete: athleteSummarySchema });
 
 export const practiceSessionSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageSchema } from './pagination';
 import { recordingOptionsSchema } from '@/lib/recordings/options';
 import { EVENT_NAMES } from '@/lib/signal/types';
 import { clubs, flights, strikes } from '@/lib/contracts/swings';
@@ -70,6 +71,8 @@ export const recordingViewSchema = z.object({
   /** rejected swing candidates of the last analysis (the coach may promote one) */
   candidates: z.array(candidateSchema),
   promotions: z.array(promotionSchema),
+  /** which swings this answer holds (?limit=&offset=, in swing order) */
+  swingsPage: pageSchema,
 });
 
 /** A swing's labels as the session's swing table shows and filters them ("not a swing" is `hidden`). */
@@ -91,7 +94,10 @@ export const sessionSwingSchema = swingSummarySchema.extend({
 export const sessionRecordingsSchema = z.object({
   session: z.object({ id: z.number().int(), athleteId: z.number().int(), sessionDate: z.string(), context: z.string(), location: z.string().nullable() }),
   recordings: z.array(z.object({ ...recordingBase, swingCount: z.number().int() })),
+  /** the swings of this answer's recordings, numbered over the whole session */
   swings: z.array(sessionSwingSchema),
+  /** which recordings this answer holds (?limit=&offset=, in upload order) */
+  page: pageSchema,
 });
 
 export const uploadResponseSchema = z.object({

@@ -89,9 +89,17 @@ export const annotationSchema = z.object({
   updatedAt: z.string(),
 });
 
+/**
+ * A uniform time axis sent as its first time, step and length instead of one number per sample: sample i is at
+ * start + i * step (seconds; the viewer rounds to 0.1 ms).
+ */
+export const timeAxisSchema = z.object({ start: z.number(), step: z.number().positive(), count: z.number().int().min(0) });
+export type TimeAxis = z.infer<typeof timeAxisSchema>;
+
 export const swingViewSchema = swingDetailSchema.extend({
+  // Columns of numbers at the precision the charts draw: shares and millimetres to 0.1, COP speed to 1 mm/s.
   series: z.object({
-    time: z.array(z.number()),
+    time: timeAxisSchema,
     leadPct: nullableSeries,
     leadHeelPct: nullableSeries,
     trailHeelPct: nullableSeries,

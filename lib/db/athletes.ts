@@ -1,4 +1,5 @@
 import 'server-only';
+import { paged, pageOf, type Page, type PageQuery } from '@/lib/pagination';
 import type { Knex } from 'knex';
 import { db } from '@/lib/db/client';
 import { toIsoDate } from '@/lib/db/values';
@@ -76,6 +77,23 @@ function containsPattern(text: string): string {
 }
 
 export async function listAthletesForViewer(viewer: Viewer, filters: AthleteListQuery = {}): Promise<AthleteSummary[]> {
+  const rows: AthleteRow[] = await filteredAthletes(viewer, filters).orderBy('a.display_name', 'asc').orderBy('a.id', 'asc');
+  return rows.map(toSummary);
+}
+
+/** Largest `limit` of GET /api/athletes. */
+export const ROSTER_MAX = 200;
+
+/** One page of the roster (name order, then id), with the number of athletes the filters match. */
+export async function listAthletesPage(viewer: Viewer, filters: AthleteListQuery, page: PageQuery): Promise<{ athletes: AthleteSummary[]; page: Page }> {
+  const [rows, count] = await Promise.all([
+    paged(filteredAthletes(viewer, filters).orderBy('a.display_name', 'asc').orderBy('a.id', 'asc'), page) as Promise<AthleteRow[]>,
+    db.count<{ n: number | string }[]>({ n: '*' }).from(filteredAthletes(viewer, filters).as('f')).first(),
+  ]);
+  return { athletes: rows.map(toSummary), page: pageOf(page, Number(count?.n ?? 0)) };
+}
+
+function filteredAthletes(viewer: Viewer, filters: AthleteListQuery): Knex.QueryBuilder {
   const query = scopedAthletes(viewer);
   if (filters.q) {
     const pattern = containsPattern(filters.q);
@@ -88,8 +106,7 @@ export async function listAthletesForViewer(viewer: Viewer, filters: AthleteList
       db('practice_sessions as pc').select(db.raw('1')).whereRaw('pc.athlete_id = a.id').whereNull('pc.binned_at').andWhere('pc.context', filters.context),
     );
   }
-  const rows: AthleteRow[] = await query.orderBy('a.display_name', 'asc').orderBy('a.id', 'asc');
-  return rows.map(toSummary);
+  return query;
 }
 
 export async function findAthleteForViewer(viewer: Viewer, athleteId: number): Promise<AthleteSummary | null> {

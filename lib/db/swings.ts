@@ -7,7 +7,9 @@ import { athleteAccess } from '@/lib/auth/access';
 import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { listAnnotations } from '@/lib/swings/annotations';
 import { labelsOf } from '@/lib/swings/labels';
-import { correctionsView, layoutView, overviewView, sensorFramesView, seriesView, siblingsView, storedSeriesOf } from '@/lib/swings/viewer-data';
+import { correctionsView, siblingsView } from '@/lib/swings/viewer-data';
+import { payloadTextOf } from '@/lib/swings/payload';
+import type { SwingPayload } from '@/lib/swings/payload-build';
 
 // One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id; with
 // getSwingForViewer also the viewer's data (lib/swings/viewer-data.ts), labels, notes and the correction audit.
@@ -18,34 +20,39 @@ function jsonObject(value: unknown): Record<string, unknown> {
   return jsonColumn<Record<string, unknown>>(value) ?? {};
 }
 
+type ReaderPart = Omit<SwingView, keyof SwingPayload>;
+
 /**
- * 404 for an unknown id, 403 for a swing of an athlete the viewer does not see (coach: roster; student: own).
- * A student gets only the notes shared with them and no correction audit.
+ * The per-reader part of a swing's view, after the access check (getSwingDetail): 404 for an unknown id or a swing
+ * of an athlete the viewer does not see (coach: roster; student: own). A student gets only the notes shared with
+ * them and no correction audit. With it the stored payload text every reader shares (lib/swings/payload.ts).
  */
-export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingView> {
+async function swingViewParts(viewer: Viewer, swingId: number): Promise<{ reader: ReaderPart; payloadText: string }> {
   const { detail, access } = await getSwingDetail(viewer, swingId);
   const isCoach = access === 'coach';
-  const [stored, overview, siblings, layout, labelRow, annotations, corrections] = await Promise.all([
-    storedSeriesOf(swingId),
-    overviewView(detail.recording.id),
+  const [payloadText, siblings, labelRow, annotations, corrections] = await Promise.all([
+    payloadTextOf(swingId),
     siblingsView(swingId, detail.recording.id, detail.index, detail.athlete.id),
-    layoutView(detail.recording.id),
     db('swing_labels').where({ swing_id: swingId }).first(),
     listAnnotations(swingId, !isCoach),
     isCoach ? correctionsView(swingId) : Promise.resolve([]),
   ]);
-  return {
-    ...detail,
-    series: seriesView(stored),
-    overview,
-    siblings,
-    ...layout,
-    sensorFrames: sensorFramesView(stored, detail.events),
-    labels: labelsOf(labelRow, detail.hidden),
-    annotations,
-    corrections,
-    canEdit: isCoach,
-  };
+  const reader: ReaderPart = { ...detail, siblings, labels: labelsOf(labelRow, detail.hidden), annotations, corrections, canEdit: isCoach };
+  return { reader, payloadText };
+}
+
+/** The GET /api/swings/:id body as JSON text: the reader's part with the stored payload spliced in unparsed. */
+export async function swingViewText(viewer: Viewer, swingId: number): Promise<string> {
+  const { reader, payloadText } = await swingViewParts(viewer, swingId);
+  const head = JSON.stringify(reader);
+  // both are JSON objects: '{...reader' + ',' + 'payload...}' ; an empty payload object is never stored
+  return `{"swing":${head.slice(0, -1)},${payloadText.slice(1)}}`;
+}
+
+/** The swing's view as an object (server components; the same parts as the route). */
+export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingView> {
+  const { reader, payloadText } = await swingViewParts(viewer, swingId);
+  return { ...reader, ...(JSON.parse(payloadText) as SwingPayload) };
 }
 
 /** The numbers only (what the swing page's tables show). */

@@ -4,6 +4,7 @@ import { createKnex } from '@/lib/db/connection';
 import { getEnv } from '@/lib/env';
 import { getStore } from '@/lib/storage';
 import { sweepBin } from '@/lib/sessions/bin';
+import { defaultThreads, getTaskPool } from './pool';
 import { startWorker, type Worker } from './worker';
 
 const BIN_SWEEP_EVERY_MS = 60 * 60 * 1000;
@@ -15,9 +16,11 @@ export function startAppWorker(): Worker | null {
   if (env.WORKER_ENABLED !== 'true') return null;
   if (globalForWorker.__stancelineWorker) return globalForWorker.__stancelineWorker;
   const db = createKnex(env.DATABASE_URL, 2);
+  const runner = getTaskPool(env.ANALYSIS_THREADS ?? defaultThreads());
   const worker = startWorker({
     db,
     store: getStore(),
+    runner,
     pollMs: env.WORKER_POLL_MS,
     lockTimeoutS: env.JOB_LOCK_TIMEOUT_S,
     log: (message) => console.error(`[stanceline worker] ${message}`),
@@ -30,7 +33,7 @@ export function startAppWorker(): Worker | null {
       .catch((error) => console.error('[stanceline bin] sweep failed', error));
   sweep();
   setInterval(sweep, BIN_SWEEP_EVERY_MS).unref();
-  console.log(`[stanceline worker] ${worker.id} polling every ${env.WORKER_POLL_MS} ms, raw files in ${getStore().description}`);
+  console.log(`[stanceline worker] ${worker.id} polling every ${env.WORKER_POLL_MS} ms, ${runner.threads} job thread(s), raw files in ${getStore().description}`);
   return worker;
 }
 

@@ -4,6 +4,7 @@ import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import type { Knex } from 'knex';
 import type { RawFileStore } from '@/lib/storage/types';
+import type { TaskRunner } from './pool';
 import { processClaimedJob, type Verdict } from './process-recording';
 import { claimNextJob, heartbeat, retryOrFail, type ClaimedJob } from './queue';
 
@@ -13,6 +14,8 @@ export interface WorkerOptions {
   pollMs: number;
   lockTimeoutS: number;
   workerId?: string;
+  /** where the analysis runs: the app's thread pool, or (default) this thread for tests and scripts */
+  runner?: TaskRunner;
   log?: (message: string) => void;
 }
 
@@ -33,11 +36,12 @@ export async function runOneJob(options: WorkerOptions & { workerId: string }): 
   const { db, store, workerId, lockTimeoutS } = options;
   const job = await claimNextJob(db, { workerId, lockTimeoutS });
   if (!job) return null;
-  // Heartbeats only fire between the awaits of the attempt; the analysis itself is synchronous, so the lock
-  // timeout must exceed the longest analysis (60 s default vs ~2 s for an hour at 100 Hz).
+  // With the app's pool the analysis runs in a worker thread and heartbeats fire throughout. With the inline runner
+  // (tests, scripts) it is synchronous and heartbeats only fire between awaits, so the lock timeout must exceed the
+  // longest analysis (60 s default vs ~2 s for an hour at 100 Hz).
   const timer = setInterval(() => void heartbeat(db, job.id, workerId).catch(() => undefined), Math.max(1000, (lockTimeoutS * 1000) / 3));
   try {
-    return { job, verdict: await processClaimedJob(db, store, job, workerId) };
+    return { job, verdict: await processClaimedJob(db, store, job, workerId, options.runner) };
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
     options.log?.(`job ${job.id} (recording ${job.recordingId}) attempt ${job.attempts} failed: ${message}`);

@@ -8,7 +8,8 @@
 import type { Knex } from 'knex';
 import { EVENT_NAMES, type AnalysisOutput, type EventName, type SwingResult } from '@/lib/signal';
 import { recomputeSwing } from '@/lib/swings/recompute';
-import { cutSwingSeries, nearestSample } from '@/lib/swings/stored-series';
+import { storeRecordingPayloads } from '@/lib/swings/payload-build';
+import { cutSwingSeries, nearestSample, type StoredSwingSeries } from '@/lib/swings/stored-series';
 import { displaySeries } from './display-series';
 
 const finiteOrNull = (v: number) => (Number.isFinite(v) ? v : null);
@@ -108,6 +109,7 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
   const values: Row[] = [];
   const phases: Row[] = [];
   const windows: Row[] = [];
+  const known = new Map<number, StoredSwingSeries>(); // swing id -> its window, for the viewer payloads
   const t = out.series.time;
   for (const [k, s] of swings.entries()) {
     const swingId = ids[k];
@@ -115,6 +117,7 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     const to = nearestSample(t, s.end_s);
     const stored = cutSwingSeries(out.series, from, to, { sensorIds: out.sensorWindows.sensorIds, forces: out.sensorWindows.forces[k] ?? [] });
     windows.push({ swing_id: swingId, sample_rate_hz: stored.sampleRateHz, samples: stored.time.length, data: JSON.stringify(stored) });
+    known.set(swingId, stored);
 
     const manualTimes = carried.get(k);
     const times = { ...s.events };
@@ -218,4 +221,5 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps, parameter_sources: out.parameters }),
     processed_at: trx.raw('NOW(3)'),
   });
+  await storeRecordingPayloads(trx, recordingId, known); // after the recording's parameters and overview
 }

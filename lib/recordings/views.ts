@@ -5,6 +5,7 @@ import { jsonColumn, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { EVENT_NAMES, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
 import type { CandidateView, PromotionView, RecordingStatus, RecordingView, SessionRecordings, SessionSwing, SwingSummary } from '@/lib/contracts/recordings';
 import { labelsOf } from '@/lib/swings/labels';
+import { paged, pageOf, sliceOf, WHOLE_LIST, type PageQuery } from '@/lib/pagination';
 import type { RecordingOptions } from './options';
 
 // Read models of recordings for the API. Times are seconds on the recording's time axis rounded to 3 decimals and
@@ -120,7 +121,7 @@ function requested(options: RecordingOptions): Record<string, unknown> {
   };
 }
 
-function toView(row: RecordingRow, swings: SwingView[], candidates: CandidateView[] = [], promotions: PromotionView[] = []): RecordingView {
+function toView(row: RecordingRow, swings: SwingView[], candidates: CandidateView[] = [], promotions: PromotionView[] = []): Omit<RecordingView, 'swingsPage'> {
   const options = jsonColumn<RecordingOptions>(row.options)!;
   return {
     id: Number(row.id),
@@ -163,10 +164,16 @@ const RECORDING_COLUMNS = [
   'processed_at',
 ];
 
-export async function getRecordingView(id: number): Promise<RecordingView | null> {
+/** Largest `limit` of GET /api/recordings/:id (a 60-minute lesson has about 120 swings). */
+export const RECORDING_SWINGS_MAX = 500;
+
+export async function getRecordingView(id: number, page: PageQuery = WHOLE_LIST): Promise<RecordingView | null> {
   const row: RecordingRow | undefined = await db('recordings').where({ id }).whereNull('binned_at').first(RECORDING_COLUMNS);
   if (!row) return null;
-  const swings = await swingViews(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'));
+  const [swings, count] = await Promise.all([
+    swingViews(paged(db('swings as s').where('s.recording_id', id).orderBy('s.swing_index'), page)),
+    db('swings').where({ recording_id: id }).count<{ n: number | string }[]>({ n: '*' }).first(),
+  ]);
   const promotions = (await db('candidate_promotions').where({ recording_id: id }).orderBy('id').select('id', 'time_s', 'reason', 'user_id', 'at')).map((p) => ({
     id: Number(p.id),
     timeS: r3(p.time_s) as number,
@@ -174,7 +181,7 @@ export async function getRecordingView(id: number): Promise<RecordingView | null
     userId: p.user_id === null ? null : Number(p.user_id),
     at: new Date(p.at).toISOString(),
   }));
-  return toView(row, swings, await candidateViews(id), promotions);
+  return { ...toView(row, swings, await candidateViews(id), promotions), swingsPage: pageOf(page, Number(count?.n ?? 0)) };
 }
 
 /**
@@ -231,11 +238,21 @@ function recordedAt(row: Pick<RecordingRow, 'metadata' | 'created_at'>): number 
   return Number.isFinite(t) ? t : new Date(row.created_at).getTime();
 }
 
-export async function getSessionRecordingsView(sessionId: number): Promise<SessionRecordingsView | null> {
+/** Largest `limit` of GET /api/sessions/:id/recordings. */
+export const SESSION_RECORDINGS_MAX = 100;
+
+/**
+ * A session's recordings with their swings; `page` picks recordings in upload order and the swings of those. Swing
+ * numbers still run over the whole session (they are computed over every recording, then the page is cut).
+ */
+export async function getSessionRecordingsView(sessionId: number, page: PageQuery = WHOLE_LIST): Promise<SessionRecordingsView | null> {
   const session = await db('practice_sessions').where({ id: sessionId }).whereNull('binned_at').first('id', 'athlete_id', 'session_date', 'context', 'location');
   if (!session) return null;
   const rows: RecordingRow[] = await db('recordings').where({ session_id: sessionId }).whereNull('binned_at').orderBy('id').select(RECORDING_COLUMNS);
-  const swings = await sessionSwings(sessionId, rows);
+  const allSwings = await sessionSwings(sessionId, rows);
+  const pageRows = sliceOf(rows, page);
+  const onPage = new Set(pageRows.map((r) => Number(r.id)));
+  const swings = allSwings.filter((s) => onPage.has(s.recordingId));
   return {
     session: {
       id: Number(session.id),
@@ -244,10 +261,11 @@ export async function getSessionRecordingsView(sessionId: number): Promise<Sessi
       context: session.context,
       location: session.location,
     },
-    recordings: rows.map((row) => {
+    recordings: pageRows.map((row) => {
       const { swings: _unused, candidates: _none, promotions: _nor, ...rest } = toView(row, []);
       return { ...rest, swingCount: swings.filter((s) => s.recordingId === Number(row.id) && !s.stale).length };
     }),
     swings,
+    page: pageOf(page, rows.length),
   };
 }

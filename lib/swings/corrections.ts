@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import { ZodError } from 'zod';
 import { ConflictError } from '@/lib/http';
 import { EVENT_NAMES, type EventName } from '@/lib/signal';
+import { storeSwingPayload } from './payload-build';
 import { recomputeSwing, type SwingNumbers } from './recompute';
 import { nearestSample, parseStoredSeries } from './stored-series';
 
@@ -90,6 +91,7 @@ export async function applyEventChanges(trx: Knex.Transaction, swingId: number, 
     numbers.phases.map((p) => ({ swing_id: swingId, phase: p.name, duration_s: fin(p.duration_s), cop_path_mm: fin(p.cop_path_mm), peak_cop_speed_mm_s: fin(p.peak_cop_speed_mm_s), mean_lead_pct: fin(p.mean_lead_pct) })),
   );
   await trx('swings').where({ id: swingId }).update({ tempo_ratio: fin(numbers.tempoRatio) });
+  await storeSwingPayload(trx, swingId); // the forces at the events moved with them
 }
 
 const fin = (v: number) => (Number.isFinite(v) ? v : null);

@@ -1,60 +1,11 @@
 import 'server-only';
-import { ANALYSIS_FALLBACKS, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
-import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { SwingView } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
-import { jsonColumn, toIsoDate } from '@/lib/db/values';
-import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
+import { toIsoDate } from '@/lib/db/values';
 import { sessionSwingNumbers } from '@/lib/recordings/views';
-import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
 
-// The viewer's parts of GET /api/swings/:id besides the numbers: the swing's full-rate traces, the recording's
-// overview, neighbours for previous/next and the overlay pick-list, the sensor layout and per-sensor forces at events.
-
-// Display rounding: time to 0.1 ms, shares / mm / mm/s to 0.01 (well below what a chart or a reader can tell apart).
-const r4 = (v: number) => Math.round(v * 1e4) / 1e4;
-const r2 = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100 || 0);
-
-export async function storedSeriesOf(swingId: number): Promise<StoredSwingSeries | null> {
-  const row = await db('swing_series').where({ swing_id: swingId }).first('data');
-  return row ? parseStoredSeries(row.data) : null;
-}
-
-export function seriesView(stored: StoredSwingSeries | null): SwingView['series'] {
-  if (!stored) return { time: [], leadPct: [], leadHeelPct: [], trailHeelPct: [], copX: [], copY: [], copSpeed: [] };
-  const tr = stored.traces;
-  return {
-    time: stored.time.map(r4),
-    leadPct: tr.leadPct.map(r2),
-    leadHeelPct: tr.leadHeelPct.map(r2),
-    trailHeelPct: tr.trailHeelPct.map(r2),
-    copX: tr.copX.map(r2),
-    copY: tr.copY.map(r2),
-    copSpeed: tr.copSpeed.map(r2),
-  };
-}
-
-/** Per-sensor forces at the sample nearest to each event's current time. */
-export function sensorFramesView(stored: StoredSwingSeries | null, events: { name: EventName; timeS: number }[]): SwingView['sensorFrames'] {
-  if (!stored || stored.time.length === 0) return [];
-  return events.map((e) => {
-    const i = nearestSample(stored.time, e.timeS);
-    return { timeS: e.timeS, event: e.name, forcesN: Object.fromEntries(stored.sensorIds.map((id, k) => [id, stored.sensorForces[k]?.[i] ?? 0])) };
-  });
-}
-
-export async function overviewView(recordingId: number): Promise<SwingView['overview']> {
-  const row = await db('recording_series').where({ recording_id: recordingId }).first('bucket_s', 'data');
-  const candidates = (await db('recording_candidates').where({ recording_id: recordingId }).orderBy('time_s').select('time_s', 'reason')).map((c) => ({
-    timeS: Math.round(Number(c.time_s) * 1000) / 1000,
-    reason: String(c.reason),
-    reasonText: REJECT_REASONS[c.reason as RejectReason] ?? String(c.reason),
-  }));
-  if (!row) return { time: [], leadPct: [], copX: [], candidates };
-  const data = jsonColumn<Pick<DisplaySeries, 't' | 'traces'>>(row.data)!;
-  const o = overviewOf({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, ['lead_pct', 'cop_x_mm']);
-  return { time: o.time, leadPct: o.traces.lead_pct, copX: o.traces.cop_x_mm, candidates };
-}
+// The per-reader parts of GET /api/swings/:id besides the numbers: neighbours for previous/next and the overlay
+// pick-list, and the correction log. The heavy part every reader shares is built in lib/swings/payload-build.ts.
 
 export async function siblingsView(swingId: number, recordingId: number, swingIndex: number, athleteId: number): Promise<SwingView['siblings']> {
   const [prev, next, same] = await Promise.all([
@@ -90,19 +41,6 @@ export async function siblingsView(swingId: number, recordingId: number, swingIn
       label: `Swing ${n}${s.club ? ` · ${String(s.club).replace(/^iron-(\d)$/, '$1-iron')}` : ''} · ${s.filename}`,
       group: `${toIsoDate(s.session_date)} · ${contextName[s.context] ?? s.context}${s.location ? ` · ${s.location}` : ''}`,
     })),
-  };
-}
-
-/** The layout the recording was processed with, and the handedness and stance width of its parameters. */
-export async function layoutView(recordingId: number): Promise<Pick<SwingView, 'layout' | 'handedness' | 'stanceWidthMm'>> {
-  const row = await db('recordings').where({ id: recordingId }).first('options', 'parameters', 'metadata');
-  const options = recordingOptionsSchema.parse(jsonColumn(row.options));
-  const params = jsonColumn<{ handedness?: 'right' | 'left'; stance_width_mm?: number }>(row.parameters) ?? {};
-  const meta = jsonColumn<{ metadata?: Record<string, string> }>(row.metadata)?.metadata ?? {};
-  return {
-    layout: resolveLayout(options, meta),
-    handedness: params.handedness ?? options.handedness ?? options.profileHandedness ?? ANALYSIS_FALLBACKS.handedness,
-    stanceWidthMm: Number(params.stance_width_mm ?? options.stanceWidthMm ?? options.profileStanceWidthMm ?? ANALYSIS_FALLBACKS.stanceWidthMm),
   };
 }
 

@@ -3,6 +3,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
+import { buildBundles } from '../build-bundles.mjs';
 import { sleep, waitFor, waitForPidExit } from './process';
 
 const NEXT_BIN = join('node_modules', 'next', 'dist', 'bin', 'next');
@@ -44,7 +45,8 @@ export function nextEnv(extra: Record<string, string>): NodeJS.ProcessEnv {
 }
 
 /** `next build` with inherited output; `track` receives the child so a caller can stop it on Ctrl-C. */
-export function runNextBuild(root: string, env: NodeJS.ProcessEnv, track?: (child: ChildProcess) => void): Promise<number> {
+export async function runNextBuild(root: string, env: NodeJS.ProcessEnv, track?: (child: ChildProcess) => void): Promise<number> {
+  await buildBundles(); // the job pool's thread bundle, which `next start` loads at run time
   return new Promise((resolve) => {
     const child = spawn(process.execPath, [NEXT_BIN, 'build'], {
       cwd: root,
@@ -75,6 +77,7 @@ export async function startNextServer(
   }: { port: number; env: NodeJS.ProcessEnv; timeoutMs?: number; track?: (child: ChildProcess) => void },
 ): Promise<NextServer> {
   const url = `http://127.0.0.1:${port}`;
+  await buildBundles(); // when .build/ was removed or is older than its sources while .next is current
   const child = spawn(process.execPath, [NEXT_BIN, 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: { ...env, NODE_ENV: 'production' },

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { annotationTime, sortAnnotations } from '@/components/swings/annotations-panel';
 import { labelFormSchema, splitTags, toFormValues, toLabels } from '@/components/swings/label-form-schema';
 import type { Annotation } from '@/lib/contracts/swings';
-import { eventRecord, movedEvents, sensorFrames, traceSeries } from '@/components/swings/swing-view-model';
+import { eventRecord, movedEvents, sensorFrames, timeAxis, traceSeries } from '@/components/swings/swing-view-model';
 
 // The swing page's translations between the API's JSON and the viewer. Expected values are worked out by hand from
 // the inputs written here (no outside reference needed: these are format conversions, not computation).
@@ -23,11 +23,19 @@ const events = [ev('address', 1), ev('top', 1.8, 1.75), ev('transition', 1.9), e
 
 describe('swing view model', () => {
   it('turns JSON nulls into NaN gaps and keeps the time axis', () => {
-    const s = traceSeries({ time: [0, 0.01], leadPct: [50, null], leadHeelPct: [1, 2], trailHeelPct: [3, 4], copX: [5, 6], copY: [7, 8], copSpeed: [null, 9] });
+    const s = traceSeries({ time: { start: 0, step: 0.01, count: 2 }, leadPct: [50, null], leadHeelPct: [1, 2], trailHeelPct: [3, 4], copX: [5, 6], copY: [7, 8], copSpeed: [null, 9] });
     expect(Array.from(s.time)).toEqual([0, 0.01]);
     expect(s.leadPct[0]).toBe(50);
     expect(Number.isNaN(s.leadPct[1])).toBe(true);
     expect(Number.isNaN(s.copSpeed[0])).toBe(true);
+  });
+
+  it('expands the columnar time axis (first time + step) to one time per sample, to 0.1 ms', () => {
+    // 200 Hz from 12.345 s: sample i at 12.345 + i * 0.005 s; 0.1 * 3 = 0.30000000000000004 in doubles, rounded away
+    expect(Array.from(timeAxis({ start: 12.345, step: 0.005, count: 4 }))).toEqual([12.345, 12.35, 12.355, 12.36]);
+    expect(Array.from(timeAxis({ start: 0, step: 0.1, count: 4 }))).toEqual([0, 0.1, 0.2, 0.3]);
+    expect(timeAxis({ start: 5, step: 0.01, count: 0 })).toHaveLength(0);
+    expect(timeAxis({ start: 100.00995, step: 0.01, count: 3 })[2]).toBe(100.03);
   });
 
   it('reads the saved and the automatic event times; a missing event gives null', () => {

@@ -35,6 +35,8 @@ const APP_TABLES = [
   'consent_records',
   'api_tokens',
   'export_audit',
+  // the stored viewer payload of each swing (GET /api/swings/:id)
+  'swing_payloads',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

@@ -143,6 +143,25 @@ describe('sign-in over HTTP', () => {
     expect((await again.json('/api/me')).status).toBe(200);
   });
 
+  it('getViewer decodes the cookie itself: a token altered in one character, or sealed with another secret, is a 401', async () => {
+    const session = new HttpSession(baseUrl);
+    expect((await session.signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);
+    const header = session.cookieHeader();
+    const match = /((?:__Secure-)?next-auth\.session-token)=([^;]+)/.exec(header)!;
+    const [name, value] = [match[1], match[2]];
+    const status = (cookie: string) => fetch(`${baseUrl}/api/me`, { headers: { cookie } }).then((r) => r.status);
+    expect(await status(`${name}=${value}`)).toBe(200);
+    // JWE compact form: the ciphertext is the 4th dot-separated part; A256GCM's tag refuses any change to it
+    const parts = value.split('.');
+    const c = parts[3];
+    parts[3] = `${c.slice(0, 10)}${c[10] === 'A' ? 'B' : 'A'}${c.slice(11)}`;
+    expect(await status(`${name}=${parts.join('.')}`)).toBe(401);
+    const { encode } = await import('next-auth/jwt');
+    const probe = await db('users').where({ email: PROBE_EMAIL }).first('id', 'session_version');
+    const forged = await encode({ token: { uid: Number(probe.id), sv: Number(probe.session_version), role: 'coach', academyId: 1, name: 'x', email: PROBE_EMAIL }, secret: 'another-secret-of-at-least-32-characters!!' });
+    expect(await status(`${name}=${forged}`)).toBe(401);
+  });
+
   it('deactivating and reactivating an account does not revive its old tokens', async () => {
     const session = new HttpSession(baseUrl);
     expect((await session.signIn(PROBE_EMAIL, PROBE_PASSWORD)).ok).toBe(true);

@@ -7,6 +7,7 @@ import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
 import { swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
+import { timeAxis } from '@/components/swings/swing-view-model';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
@@ -74,11 +75,17 @@ afterAll(async () => {
 describe('GET /api/swings/:id for the viewer', () => {
   it('gives the full-rate window, overview, neighbours, layout, sensor forces at events and empty coach work', async () => {
     const s = await getSwing('coach', swingIds[0]);
-    expect(s.series.time[0]).toBeCloseTo(s.startS, 3);
-    expect(s.series.time.at(-1)).toBeCloseTo(s.endS, 3);
-    expect(s.series.time.length).toBe(Math.round((s.endS - s.startS) * 100) + 1); // 100 Hz, both ends included
-    for (const key of ['leadPct', 'leadHeelPct', 'trailHeelPct', 'copX', 'copY', 'copSpeed'] as const) expect(s.series[key]).toHaveLength(s.series.time.length);
-    expect(s.overview.time.length).toBeGreaterThan(s.series.time.length / 10);
+    const time = timeAxis(s.series.time); // columnar: first time + step + count (lib/contracts/swings.ts)
+    expect(s.series.time.step).toBeCloseTo(0.01, 12); // 100 Hz
+    expect(time[0]).toBeCloseTo(s.startS, 3);
+    expect(time.at(-1)).toBeCloseTo(s.endS, 3);
+    expect(time.length).toBe(Math.round((s.endS - s.startS) * 100) + 1); // 100 Hz, both ends included
+    for (const key of ['leadPct', 'leadHeelPct', 'trailHeelPct', 'copX', 'copY', 'copSpeed'] as const) expect(s.series[key]).toHaveLength(time.length);
+    // the traces at the CLI's per-sample series (lead % to 0.1 here, 2 decimals in the CSV)
+    const i = Math.floor(time.length / 2);
+    const row = seriesCsv.find((r) => Math.abs(r.time - time[i]) < 0.004)!;
+    expect(Math.abs(s.series.leadPct[i]! - row.leadPct!)).toBeLessThanOrEqual(0.051);
+    expect(s.overview.time.length).toBeGreaterThan(time.length / 10);
     expect(s.siblings).toMatchObject({ previousId: null, nextId: swingIds[1] });
     expect(s.siblings.sameAthlete.map((x) => x.id)).toContain(swingIds[1]);
     expect(s.siblings.sameAthlete.map((x) => x.id)).not.toContain(swingIds[0]);
@@ -303,4 +310,77 @@ describe('role matrix of every swing route', () => {
       }
     });
   }
+});
+
+describe('GET /api/swings/:id: stored payload, ETag, 304, gzip', () => {
+  const get = (actor: Actor, id: number, etag?: string) => sessions.get(actor)!.fetch(`/api/swings/${id}`, { headers: etag ? { 'if-none-match': etag } : {} });
+
+  it('answers with an ETag and gzip, and 304 with no body for a matching If-None-Match (RFC 9110 13.1.2, 15.4.5)', async () => {
+    const first = await get('coach', swingIds[1]);
+    expect(first.status).toBe(200);
+    const etag = first.headers.get('etag')!;
+    expect(etag).toMatch(/^W\/"[^"]+"$/);
+    expect(first.headers.get('content-encoding')).toBe('gzip'); // fetch sends Accept-Encoding: gzip and unpacks it
+    expect(first.headers.get('cache-control')).toBe('private, no-cache');
+    expect(swingViewResponseSchema.parse(await first.json()).swing.id).toBe(swingIds[1]);
+    const again = await get('coach', swingIds[1], etag);
+    expect(again.status).toBe(304);
+    expect(again.headers.get('etag')).toBe(etag);
+    expect(await again.text()).toBe('');
+    expect((await get('coach', swingIds[1], `"other", ${etag}`)).status).toBe(304);
+    const stale = await get('coach', swingIds[1], 'W/"not-this-one"');
+    expect(stale.status).toBe(200);
+    await stale.arrayBuffer();
+  });
+
+  it('a correction changes the ETag, and the new body carries the forces at the moved event', async () => {
+    const before = await get('coach', swingIds[1]);
+    const etag = before.headers.get('etag')!;
+    const s = swingViewResponseSchema.parse(await before.json()).swing;
+    const top = ev(s, 'top').timeS + 0.03;
+    expect((await send('coach', 'PATCH', `/api/swings/${swingIds[1]}`, { events: { top } })).status).toBe(200);
+    const after = await get('coach', swingIds[1], etag);
+    expect(after.status).toBe(200);
+    expect(after.headers.get('etag')).not.toBe(etag);
+    const moved = swingViewResponseSchema.parse(await after.json()).swing;
+    expect(moved.sensorFrames.find((f) => f.event === 'top')!.timeS).toBeCloseTo(top, 3);
+    const stored = await db('swing_payloads').where({ swing_id: swingIds[1] }).first('body');
+    expect(JSON.parse(stored.body).sensorFrames.find((f: { event: string }) => f.event === 'top').timeS).toBeCloseTo(top, 3);
+    expect((await send('coach', 'PATCH', `/api/swings/${swingIds[1]}`, { resetEvents: ['top'] })).status).toBe(200);
+    const reset = await get('coach', swingIds[1], after.headers.get('etag')!);
+    expect(reset.status).toBe(200); // the reset moved top back and added an audit row: a new body and validator
+    expect(reset.headers.get('etag')).not.toBe(after.headers.get('etag'));
+    expect(ev(swingViewResponseSchema.parse(await reset.json()).swing, 'top').timeS).toBe(ev(s, 'top').timeS);
+  });
+
+  it('a student never gets another reader’s or another athlete’s payload, not even as a 304', async () => {
+    const coachOwn = await get('coach', swingIds[1]);
+    const coachEtag = coachOwn.headers.get('etag')!;
+    await coachOwn.arrayBuffer();
+    // the student's own swing: their own body (no audit, read-only), so a different validator than the coach's
+    const mine = await get('student', swingIds[1], coachEtag);
+    expect(mine.status).toBe(200);
+    expect(mine.headers.get('etag')).not.toBe(coachEtag);
+    expect(swingViewResponseSchema.parse(await mine.json()).swing.canEdit).toBe(false);
+
+    // a swing of another athlete (athlete 3 on coach@'s roster, not the student's), its stored payload already built
+    const res = await upload(sessions.get('coach')!, { athleteId: 3, sessionId: 6, handedness: 'right', stanceWidthMm: 380 }, [{ name: 'other-athlete.csv', content: golfCsv }]);
+    expect(res.status).toBe(202);
+    const done = await settled(sessions.get('coach')!, res.body.recordings[0].id);
+    const otherId = done.swings[0].id as number;
+    expect(await db('swing_payloads').where({ swing_id: otherId }).first('swing_id')).toBeTruthy();
+    const other = await get('coach', otherId);
+    const otherEtag = other.headers.get('etag')!;
+    await other.arrayBuffer();
+    for (const actor of ['student', 'coach2'] as const) {
+      const r = await get(actor, otherId, otherEtag);
+      expect(r.status, actor).toBe(404); // the same answer as an unknown id (DEVELOPERS.md "Conventions")
+      expect(r.headers.get('etag')).toBeNull();
+      expect(JSON.stringify(await r.json())).not.toContain('series');
+    }
+    const anonymous = await get('none', otherId, otherEtag);
+    expect(anonymous.status).toBe(401);
+    expect(anonymous.headers.get('etag')).toBeNull();
+    await anonymous.arrayBuffer();
+  });
 });

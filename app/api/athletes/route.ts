@@ -1,11 +1,13 @@
 import { requireRole } from '@/lib/auth/roles';
-import { createAthleteForCoach, listAthletesForViewer } from '@/lib/db/athletes';
+import { createAthleteForCoach, listAthletesPage, ROSTER_MAX } from '@/lib/db/athletes';
+import { pageQueryOf } from '@/lib/pagination';
 import { json, readJson, withErrors } from '@/lib/http';
 import { athleteInputSchema, athleteListQuerySchema } from '@/lib/contracts/athletes';
 
 export const dynamic = 'force-dynamic';
 
-// Coaches see their roster; a student sees a list holding only their own profile.
+// Coaches see their roster; a student sees a list holding only their own profile. ?limit=&offset= page through it
+// (limit at most ROSTER_MAX; `page` says which part; without limit the whole roster).
 export const GET = withErrors(async (request: Request) => {
   const viewer = await requireRole('coach', 'student');
   const url = new URL(request.url);
@@ -14,7 +16,7 @@ export const GET = withErrors(async (request: Request) => {
     context: url.searchParams.get('context') || undefined,
     handedness: url.searchParams.get('handedness') || undefined,
   });
-  return json({ athletes: await listAthletesForViewer(viewer, filters) });
+  return json(await listAthletesPage(viewer, filters, pageQueryOf(url, ROSTER_MAX)));
 });
 
 export const POST = withErrors(async (request: Request) => {

@@ -5,7 +5,7 @@ const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DECIMAL_COMMA = /^[+-]?\d+,\d+$/;
 
 // 10^0 .. 10^15, all exact in a double.
-const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
+export const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
 
 /**
  * A cell as a number: NaN for an empty cell (a missing sample), null when it is not a number.

@@ -5,7 +5,7 @@
 import Papa from 'papaparse';
 import { SignalInputError } from '../errors';
 import type { ImportProfile, RawRecording, Units } from '../types';
-import { cellNumber, checkedMetadataValue, clip, detectDelimiter, metadataEntry, quote } from './cells';
+import { cellNumber, checkedMetadataValue, clip, detectDelimiter, metadataEntry, POW10, quote } from './cells';
 import { planFromHeader, planFromProfile, type ColumnPlan } from './columns';
 import { Growable } from './growable';
 
@@ -36,8 +36,9 @@ export interface RecordingReader {
   end(): RawRecording;
 }
 
-export function createRecordingReader(opts: { profile?: ImportProfile } = {}): RecordingReader {
+export function createRecordingReader(opts: { profile?: ImportProfile; /** off: every line through papaparse (tests) */ fastScan?: boolean } = {}): RecordingReader {
   const profile = opts.profile;
+  const fastEnabled = opts.fastScan !== false;
   const metadata: Record<string, string> = {};
   let pending = '';
   let started = false;
@@ -66,6 +67,9 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
   const setDelimiter = (firstLine: string) => {
     delimiter = profile?.delimiter ?? detectDelimiter(firstLine);
     decimalComma = delimiter === ';';
+    // the hot path needs a one-character delimiter that cannot be part of a number
+    fastCode = delimiter.length === 1 ? delimiter.charCodeAt(0) : -1;
+    fast = fastEnabled && fastCode >= 0 && !/[0-9.+\-]/.test(delimiter) && !(decimalComma && fastCode === 44);
   };
 
   // papaparse's tokeniser, the Parser that Papa.parse wraps, called directly with the same settings. Measured on a
@@ -172,6 +176,98 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
     dataText(rest);
   };
 
+  /**
+   * The hot path for the common line: every cell a plain decimal (sign, at most 15 digits, one point; the cells
+   * plainDecimal in cells.ts reads), as many cells as the header, time increasing, readings in range, impact 0/1.
+   * Such a line is read straight from the text's character codes, with the same arithmetic as plainDecimal (so the
+   * same doubles, bit for bit) and no cell strings. Any other line (empty, '#', spaces, an exponent, a missing
+   * value, a wrong count, anything an error message would quote) goes through papaparse and dataRow unchanged, so
+   * its result or its error is exactly what it was. Checked against the papaparse path on every fixture and on
+   * generated damage (tests/signal/read-fast-scan.test.ts).
+   */
+  let fast = false;
+  let fastCode = 0; // the delimiter's character code
+  let cells = new Float64Array(0);
+  const scanPiece = (text: string, p: ColumnPlan) => {
+    let from = 0;
+    const n = text.length;
+    for (;;) {
+      let nl = text.indexOf('\n', from);
+      if (nl < 0) nl = n;
+      if (!fastLine(text, from, nl, p)) {
+        // papaparse splits a piece at every '\n'; one line of it alone gives the same row
+        const one = text.slice(from, nl);
+        if (one === '') line++;
+        else {
+          const rows = tokenise(one);
+          for (let r = 0; r < rows.length; r++) dataRow(rows[r], p);
+        }
+      }
+      if (nl >= n) return;
+      from = nl + 1;
+    }
+  };
+
+  /** Reads one line [from, end) when it is a common one (see scanPiece); false leaves it to the papaparse path. */
+  const fastLine = (text: string, from: number, end: number, p: ColumnPlan): boolean => {
+    const want = p.fieldCount;
+    if (want === null || want < p.minFields) return false;
+    if (end > from && text.charCodeAt(end - 1) === 13) end--; // CRLF: stripCr's job
+    if (end <= from) return false;
+    if (cells.length !== want) cells = new Float64Array(want);
+    let k = 0;
+    let i = from;
+    const comma = decimalComma;
+    for (;;) {
+      // one cell: exactly plainDecimal's grammar and arithmetic
+      if (k === want) return false; // more cells than the header
+      let c = text.charCodeAt(i);
+      const neg = c === 45;
+      if (neg || c === 43) i++;
+      let m = 0;
+      let digits = 0;
+      let point = -1;
+      let isComma = false;
+      for (; i < end; i++) {
+        c = text.charCodeAt(i);
+        const d = c - 48;
+        if (d >= 0 && d <= 9) {
+          m = m * 10 + d;
+          digits++;
+        } else if (c === fastCode) break;
+        else if (point < 0 && (c === 46 || (c === 44 && comma))) {
+          point = digits;
+          isComma = c === 44;
+        } else return false;
+      }
+      if (digits === 0 || digits > 15) return false;
+      if (isComma && (point === 0 || point === digits)) return false;
+      const v = point < 0 ? m : m / POW10[digits - point];
+      cells[k++] = neg ? -v : v;
+      if (i >= end) break;
+      i++; // past the delimiter
+      if (i >= end) return false; // an empty last cell
+    }
+    if (k !== want) return false;
+    const ts = cells[p.time] * p.timeScale;
+    if (!(ts > prevTime)) return false;
+    const sensors = p.sensors;
+    for (let c = 0; c < sensors.length; c++) if (cells[sensors[c]] < -MAX_NEGATIVE_READING) return false;
+    if (impact) {
+      const v = cells[p.impact];
+      if (v !== 0 && v !== 1) return false;
+    }
+    // accepted: the same effects as dataRow for this line
+    line++;
+    lastContentLine = line;
+    prevTime = ts;
+    for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
+    if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
+    time!.push(ts);
+    lines!.push(line);
+    return true;
+  };
+
   /** Whole data lines, tokenised a piece of about PIECE characters at a time (see PIECE). */
   const dataText = (text: string) => {
     const p = plan as ColumnPlan;
@@ -182,8 +278,11 @@ export function createRecordingReader(opts: { profile?: ImportProfile } = {}): R
       if (piece === '') line++; // the empty line after a final newline; papaparse returns no row for ''
       else {
         if (piece.length > MAX_LINE_CHARS) checkLines(piece, line);
-        const rows = tokenise(piece);
-        for (let r = 0; r < rows.length; r++) dataRow(rows[r], p);
+        if (fast) scanPiece(piece, p);
+        else {
+          const rows = tokenise(piece);
+          for (let r = 0; r < rows.length; r++) dataRow(rows[r], p);
+        }
       }
       if (to < 0) return;
       from = to + 1;

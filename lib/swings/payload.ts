@@ -1,0 +1,40 @@
+import 'server-only';
+import { createHash } from 'node:crypto';
+import { db } from '@/lib/db/client';
+import { storeSwingPayload } from './payload-build';
+
+// Serving the stored viewer payload (lib/swings/payload-build.ts builds it). The per-reader part (numbers, labels,
+// notes, audit, neighbours, canEdit) is read per request after the role and access checks, and the ETag is taken
+// over the whole body that reader gets, so a stored payload or a 304 never skips them.
+
+/** The stored payload text of a swing; a swing processed before payloads were stored gets one built now. */
+export async function payloadTextOf(swingId: number): Promise<string> {
+  const row = await db('swing_payloads').where({ swing_id: swingId }).first('body');
+  return row ? String(row.body) : storeSwingPayload(db, swingId);
+}
+
+/** A weak validator of one response body (weak, so it stays valid for the gzip and identity encodings). */
+export function etagOf(body: string): string {
+  return `W/"${createHash('sha256').update(body).digest('base64url').slice(0, 27)}"`;
+}
+
+/** True when an If-None-Match header names this ETag (weak comparison, RFC 9110 section 13.1.2). */
+export function matchesEtag(ifNoneMatch: string | null, etag: string): boolean {
+  if (!ifNoneMatch) return false;
+  if (ifNoneMatch.trim() === '*') return true;
+  const opaque = (tag: string) => tag.trim().replace(/^W\//, '');
+  return ifNoneMatch.split(',').some((tag) => opaque(tag) === opaque(etag));
+}
+
+/**
+ * Answers a JSON body the caller built for this reader after requireRole and the access check: a weak ETag of the
+ * exact text, and 304 with no body when If-None-Match names it. `Cache-Control: private, no-cache` sends every reuse
+ * back here (through the checks) first. Compression (gzip when the client accepts it) is Next's own (`compress`,
+ * on by default for `next start`): compressing here as well would encode the body twice.
+ */
+export function sendCacheableJson(request: Request, body: string): Response {
+  const etag = etagOf(body);
+  const headers: Record<string, string> = { ETag: etag, 'Cache-Control': 'private, no-cache', Vary: 'Cookie' };
+  if (matchesEtag(request.headers.get('if-none-match'), etag)) return new Response(null, { status: 304, headers });
+  return new Response(body, { status: 200, headers: { ...headers, 'Content-Type': 'application/json; charset=utf-8' } });
+}

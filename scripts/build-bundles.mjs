@@ -1,0 +1,81 @@
+// Compiled entry points that must start without tsx: the analyze command and the job pool's worker thread of the
+// app. esbuild bundles each TypeScript entry with its imports (the `@/` paths come from tsconfig.json) into one ES
+// module under .build/. Plain JavaScript so it runs from `npm ci`'s prepare step and from the analyze launcher.
+//   node scripts/build-bundles.mjs          build the bundles that are missing or older than their sources
+//   node scripts/build-bundles.mjs --force  build them all
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+export const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..');
+export const BUILD_DIR = join(ROOT, '.build');
+
+// Every input that can change a bundle (folders walked recursively). Wider than strictly needed, never narrower.
+const SHARED_INPUTS = ['lib/signal', 'package.json', 'tsconfig.json', 'scripts/build-bundles.mjs'];
+
+export const BUNDLES = {
+  analyze: { entry: 'scripts/analyze.ts', out: 'analyze.mjs', inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts'] },
+  // the job pool's worker thread (lib/jobs/pool.ts): every task registered in lib/jobs/tasks
+  'job-thread': {
+    entry: 'lib/jobs/thread-entry.ts',
+    out: 'job-thread.mjs',
+    inputs: ['lib/jobs/thread-entry.ts', 'lib/jobs/tasks', 'lib/recordings/options.ts', 'lib/recordings/stored-text.ts'],
+  },
+};
+
+function newestMtime(path) {
+  if (!existsSync(path)) return 0;
+  const stat = statSync(path);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const entry of readdirSync(path)) newest = Math.max(newest, newestMtime(join(path, entry)));
+  return newest;
+}
+
+export function bundlePath(name) {
+  return join(BUILD_DIR, BUNDLES[name].out);
+}
+
+/** True when the bundle is missing or a source it is made from is newer. */
+export function isStale(name) {
+  const out = bundlePath(name);
+  if (!existsSync(out)) return true;
+  const builtAt = statSync(out).mtimeMs;
+  return [...SHARED_INPUTS, ...BUNDLES[name].inputs].some((input) => newestMtime(join(ROOT, input)) > builtAt);
+}
+
+export async function buildBundle(name) {
+  const { build } = await import('esbuild');
+  await build({
+    absWorkingDir: ROOT,
+    entryPoints: [join(ROOT, BUNDLES[name].entry)],
+    outfile: bundlePath(name),
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    tsconfig: join(ROOT, 'tsconfig.json'),
+    // CommonJS dependencies (papaparse) call require(); give the ES module one.
+    banner: { js: "import { createRequire as __stancelineRequire } from 'node:module'; const require = __stancelineRequire(import.meta.url);" },
+    logLevel: 'warning',
+    legalComments: 'none',
+  });
+  return bundlePath(name);
+}
+
+/** Builds what is stale (or everything with force); returns the names built. */
+export async function buildBundles({ force = false, names = Object.keys(BUNDLES) } = {}) {
+  const built = [];
+  for (const name of names) {
+    if (force || isStale(name)) {
+      await buildBundle(name);
+      built.push(name);
+    }
+  }
+  return built;
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const built = await buildBundles({ force: process.argv.includes('--force') });
+  console.log(built.length ? `built ${built.map((n) => `.build/${BUNDLES[n].out}`).join(', ')}` : 'bundles are up to date');
+}

@@ -8,6 +8,8 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'shots',
+  'shot_imports',
   'drill_assignments',
   'drills',
   'bands',
@@ -24,6 +26,7 @@ export const TABLES_CHILD_FIRST = [
   'processing_jobs',
   'recordings',
   'import_profiles',
+  'shot_profiles',
   'login_attempts',
   'practice_sessions',
   'coach_athletes',

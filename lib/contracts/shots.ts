@@ -133,8 +133,11 @@ export type SessionShots = z.infer<typeof sessionShotsSchema>;
 export const shotOffsetPatchSchema = z.union([
   z.strictObject({ offsetS: z.number({ error: 'The offset must be a number of seconds.' }).min(-86400).max(86400) }),
   z.strictObject({ refind: z.literal(true) }),
-  z.strictObject({ units: z.enum(UNIT_SYSTEMS, { error: 'Units are metric or imperial.' }) }),
 ]);
+
+/** PUT /api/me/shot-units: the units the signed-in user reads shot values in. */
+export const shotUnitsInputSchema = z.strictObject({ units: z.enum(UNIT_SYSTEMS, { error: 'Units are metric or imperial.' }) });
+export const shotUnitsResponseSchema = shotUnitsInputSchema;
 
 /** PATCH /api/shots/:id: pair with a swing of the same session, or unpair (null). */
 export const shotPairPatchSchema = z.strictObject({ swingId: z.number().int().positive().nullable() });
@@ -198,3 +201,5 @@ export const rankingResponseSchema = z.object({
   clubs: z.array(z.string()),
 });
 export type RankingResponse = z.infer<typeof rankingResponseSchema>;
+
+export const shotProfileDeletedSchema = z.object({ deleted: z.number().int() });

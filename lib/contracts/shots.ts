@@ -135,7 +135,7 @@ export const shotOffsetPatchSchema = z.union([
   z.strictObject({ refind: z.literal(true) }),
 ]);
 
-/** PUT /api/me/shot-units: the units the signed-in user reads shot values in. */
+/** PATCH /api/me/shot-units: the units the signed-in user reads shot values in. */
 export const shotUnitsInputSchema = z.strictObject({ units: z.enum(UNIT_SYSTEMS, { error: 'Units are metric or imperial.' }) });
 export const shotUnitsResponseSchema = shotUnitsInputSchema;
 

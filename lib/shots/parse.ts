@@ -115,8 +115,12 @@ function toSi(field: NumericField, value: number, profile: ShotProfile): number 
   return value; // launch angle in degrees, spin in rpm
 }
 
-/** Reads the whole file. Lines starting with '#' before the header and blank lines are skipped. */
-export function parseShotLog(text: string, profile: ShotProfile, sessionDate: string): ParsedShot[] {
+/**
+ * Reads the whole file. Lines starting with '#' before the header and blank lines are skipped. With `allColumns`
+ * every column the profile names must be in the header (a coach's own profile); without it (our plain layout)
+ * only the time column is required and the others are read when present.
+ */
+export function parseShotLog(text: string, profile: ShotProfile, sessionDate: string, allColumns = true): ParsedShot[] {
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   const problems: Problem[] = [];
   const fail = (p: Problem) => {
@@ -136,8 +140,8 @@ export function parseShotLog(text: string, profile: ShotProfile, sessionDate: st
   for (const [ours, theirs] of Object.entries(columns)) {
     if (!theirs) continue;
     const at = header.findIndex((h) => h === theirs);
-    if (at < 0) fail({ line: headerAt + 1, column: null, message: `the header has no column ${quote(theirs)} (profile column "${ours}"); it has ${header.map(quote).join(', ')}` });
-    else col.set(ours, at);
+    if (at < 0 && (allColumns || ours === 'time')) fail({ line: headerAt + 1, column: null, message: `the header has no column ${quote(theirs)} (profile column "${ours}"); it has ${header.map(quote).join(', ')}` });
+    else if (at >= 0) col.set(ours, at);
   }
   if (problems.length > 0) throw new ShotFileError(problems);
 

@@ -69,7 +69,7 @@ export async function receiveShotLog(viewer: Viewer, sessionId: number, request:
     const input = { sessionId, uploadedBy: viewer.id, filename: file.filename, byteSize: file.byteSize, sha256: file.sha256, storageKey: key, profile };
     let shots;
     try {
-      shots = parseShotLog(text, profile, toIsoDate(session.session_date) ?? '1970-01-01');
+      shots = parseShotLog(text, profile, toIsoDate(session.session_date) ?? '1970-01-01', profile !== DEFAULT_SHOT_PROFILE);
     } catch (error) {
       if (!(error instanceof ShotFileError)) throw error;
       await recordFailedImport(db, input, error.message);

@@ -11,7 +11,7 @@ export const GET = withErrors(async () => {
   return json({ units: await shotUnitsOf(viewer) });
 });
 
-export const PUT = withErrors(async (request: Request) => {
+export const PATCH = withErrors(async (request: Request) => {
   const viewer = await requireRole(...ALL_ROLES);
   const { units } = shotUnitsInputSchema.parse(await readJson(request));
   await setShotUnits(viewer, units);

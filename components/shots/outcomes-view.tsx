@@ -6,12 +6,13 @@ import useSWR from 'swr';
 import { Card } from '@/components/ui/card';
 import { inputClass } from '@/components/ui/field';
 import { fetchJson } from '@/lib/fetcher';
-import { OUTCOMES, outcomesResponseSchema, rankingResponseSchema, type MetricId, type Outcome, type UnitSystem } from '@/lib/contracts/shots';
-import { METRIC_HELP, METRIC_LABELS, OUTCOME_LABELS, outcomeUnit, outcomeValue } from './shot-format';
+import { OUTCOMES, outcomeSessionsResponseSchema, outcomesResponseSchema, rankingResponseSchema, type MetricId, type Outcome, type UnitSystem } from '@/lib/contracts/shots';
+import { formatOutcome, METRIC_HELP, METRIC_LABELS, OUTCOME_LABELS, outcomeUnit, outcomeValue } from './shot-format';
 import { OutcomeScatter } from './outcome-scatter';
 
 const fetchRanking = fetchJson(rankingResponseSchema);
 const fetchOutcomes = fetchJson(outcomesResponseSchema);
+const fetchSessions = fetchJson(outcomeSessionsResponseSchema);
 
 /** Fewer shots than this say little about a relation (common practice; the note says so beside the numbers). */
 export const FEW_SHOTS = 10;
@@ -29,6 +30,7 @@ export function OutcomesView({ athleteId, units }: { athleteId: number; units: U
   const { data: ranking, error } = useSWR(`/api/athletes/${athleteId}/outcomes/ranking?${filters}`, fetchRanking);
   const chosen = metric ?? ranking?.rows.find((r) => r.r !== null)?.metric ?? null;
   const { data: detail } = useSWR(chosen ? `/api/athletes/${athleteId}/outcomes?metric=${chosen}&${filters}` : null, fetchOutcomes);
+  const { data: bySession } = useSWR(`/api/athletes/${athleteId}/outcomes/sessions?club=${encodeURIComponent(club)}&from=${from}&to=${to}`, fetchSessions);
   const n = ranking?.rows.reduce((m, r) => Math.max(m, r.n), 0) ?? 0;
   const yLabel = `${OUTCOME_LABELS[outcome]} (${outcomeUnit(outcome, units)})`;
 
@@ -130,6 +132,42 @@ export function OutcomesView({ athleteId, units }: { athleteId: number; units: U
             slope={detail.slope === null ? null : outcomeValue(outcome, detail.slope, units)}
             intercept={detail.intercept === null ? null : outcomeValue(outcome, detail.intercept, units)}
           />
+        </Card>
+      )}
+      {bySession && bySession.sessions.length > 0 && (
+        <Card title="Session by session">
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm" data-testid="outcome-sessions">
+              <caption className="sr-only">Mean results of the paired shots per session, next to pressure measures</caption>
+              <thead className="text-ink-muted">
+                <tr>
+                  <th scope="col" className="py-2 pr-3">Session</th>
+                  <th scope="col" className="py-2 pr-3">Shots</th>
+                  <th scope="col" className="py-2 pr-3">Ball speed ({outcomeUnit('ball_speed', units)})</th>
+                  <th scope="col" className="py-2 pr-3">Carry ({outcomeUnit('carry', units)})</th>
+                  <th scope="col" className="py-2 pr-3">Lead foot % at impact</th>
+                  <th scope="col" className="py-2 pr-3">Tempo</th>
+                </tr>
+              </thead>
+              <tbody>
+                {bySession.sessions.map((s) => (
+                  <tr key={s.sessionId} className="border-t border-surface-line">
+                    <td className="py-1.5 pr-3">
+                      <a className="text-accent underline" href={`/sessions/${s.sessionId}`}>
+                        {s.date} · {s.context}
+                      </a>
+                    </td>
+                    <td className="py-1.5 pr-3">{s.shots}</td>
+                    <td className="py-1.5 pr-3">{formatOutcome('ball_speed', s.ballSpeed, units)}</td>
+                    <td className="py-1.5 pr-3">{formatOutcome('carry', s.carry, units)}</td>
+                    <td className="py-1.5 pr-3">{s.leadPctAtImpact === null ? '–' : s.leadPctAtImpact.toFixed(1)}</td>
+                    <td className="py-1.5 pr-3">{s.tempoRatio === null ? '–' : `${s.tempoRatio.toFixed(1)} : 1`}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <p className="mt-2 text-sm text-ink-muted">Means per session; a session with a few shots moves a lot by chance.</p>
         </Card>
       )}
     </div>

@@ -131,7 +131,7 @@ export type SessionShots = z.infer<typeof sessionShotsSchema>;
 
 /** PATCH /api/sessions/:id/shots: shift the offset by hand (re-pairs the automatic pairs) or find it again. */
 export const shotOffsetPatchSchema = z.union([
-  z.strictObject({ offsetS: z.number({ error: 'The offset must be a number of seconds.' }).min(-86400).max(86400) }),
+  z.strictObject({ offsetS: z.number({ error: 'The offset must be a number of seconds.' }).min(-1e9).max(1e9) }),
   z.strictObject({ refind: z.literal(true) }),
 ]);
 
@@ -203,3 +203,22 @@ export const rankingResponseSchema = z.object({
 export type RankingResponse = z.infer<typeof rankingResponseSchema>;
 
 export const shotProfileDeletedSchema = z.object({ deleted: z.number().int() });
+
+/** GET /api/athletes/:id/outcomes/sessions: per session, the means of the results next to key pressure measures. */
+export const outcomeSessionsQuerySchema = rankingQuerySchema.omit({ outcome: true });
+export const outcomeSessionsResponseSchema = z.object({
+  sessions: z.array(
+    z.object({
+      sessionId: z.number().int(),
+      date: z.string(),
+      context: z.string(),
+      shots: z.number().int(),
+      /** means over the paired shots (SI units) and their swings; null when none has the value */
+      ballSpeed: z.number().nullable(),
+      carry: z.number().nullable(),
+      leadPctAtImpact: z.number().nullable(),
+      tempoRatio: z.number().nullable(),
+    }),
+  ),
+});
+export type OutcomeSessionsResponse = z.infer<typeof outcomeSessionsResponseSchema>;

@@ -2,7 +2,7 @@ import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { requireAthlete } from '@/lib/auth/access';
 import { db } from '@/lib/db/client';
-import { METRIC_IDS, type MetricId, type Outcome, type OutcomesResponse, type RankingResponse } from '@/lib/contracts/shots';
+import { METRIC_IDS, type MetricId, type Outcome, type OutcomeSessionsResponse, type OutcomesResponse, type RankingResponse } from '@/lib/contracts/shots';
 import { benjaminiHochberg, correlate } from '@/lib/outcomes/stats';
 import { swingFacts, type SwingFacts } from '@/lib/targets/swing-facts';
 
@@ -20,6 +20,7 @@ const OUTCOME_COLUMNS: Record<Outcome, string> = {
 
 interface PairedShot {
   swingId: number;
+  sessionId: number;
   club: string | null;
   values: Record<Outcome, number | null>;
 }
@@ -41,7 +42,7 @@ async function pairedShots(athleteId: number, q: { from?: string; to?: string })
     .whereNull('i.binned_at')
     .whereNull('r.binned_at')
     .whereNull('p.binned_at')
-    .select('sh.swing_id', 'sh.club', 'l.club as label_club', 's.forward_press_mm', ...Object.values(OUTCOME_COLUMNS).map((c) => `sh.${c}`));
+    .select('sh.swing_id', 'p.id as session_id', 'sh.club', 'l.club as label_club', 's.forward_press_mm', ...Object.values(OUTCOME_COLUMNS).map((c) => `sh.${c}`));
   if (q.from) query.where('p.session_date', '>=', q.from);
   if (q.to) query.where('p.session_date', '<=', q.to);
   const rows = await query.orderBy('sh.swing_id');
@@ -50,6 +51,7 @@ async function pairedShots(athleteId: number, q: { from?: string; to?: string })
     forwardPress.set(Number(r.swing_id), num(r.forward_press_mm));
     return {
       swingId: Number(r.swing_id),
+      sessionId: Number(r.session_id),
       club: r.club ?? r.label_club ?? null,
       values: Object.fromEntries(Object.entries(OUTCOME_COLUMNS).map(([o, c]) => [o, num(r[c])])) as Record<Outcome, number | null>,
     };
@@ -126,4 +128,35 @@ export async function rankingForViewer(viewer: Viewer, athleteId: number, q: Que
   const out = rows.map((r, i) => ({ ...r, pAdjusted: Number.isFinite(adjusted[i]) ? adjusted[i] : null }));
   out.sort((a, b) => (b.r === null ? -1 : Math.abs(b.r)) - (a.r === null ? -1 : Math.abs(a.r)));
   return { outcome: q.outcome, club: q.club ?? null, rows: out, clubs };
+}
+
+const meanOrNull = (xs: (number | null)[]): number | null => {
+  const v = xs.filter((x): x is number => x !== null);
+  return v.length ? v.reduce((a, b) => a + b, 0) / v.length : null;
+};
+
+/** Session by session: how many paired shots, mean ball speed and carry, next to mean lead % at impact and tempo. */
+export async function outcomeSessionsForViewer(viewer: Viewer, athleteId: number, q: { club?: string; from?: string; to?: string }): Promise<OutcomeSessionsResponse> {
+  await requireAthlete(viewer, athleteId, 'read');
+  const { shots, forwardPress } = await pairedShots(athleteId, q);
+  const mine = q.club ? shots.filter((s) => clubKey(s.club) === clubKey(q.club)) : shots;
+  const facts = new Map((await swingFacts({ swingIds: [...new Set(mine.map((s) => s.swingId))] })).map((f) => [f.id, f]));
+  const bySession = new Map<number, PairedShot[]>();
+  for (const s of mine) bySession.set(s.sessionId, [...(bySession.get(s.sessionId) ?? []), s]);
+  const sessions = [...bySession.entries()].map(([sessionId, list]) => {
+    const f = facts.get(list[0].swingId);
+    const fx = (m: MetricId) => list.map((s) => (facts.get(s.swingId) ? metricOf(facts.get(s.swingId)!, m, forwardPress.get(s.swingId) ?? null) : null));
+    return {
+      sessionId,
+      date: f?.sessionDate ?? '',
+      context: f?.context ?? '',
+      shots: list.length,
+      ballSpeed: meanOrNull(list.map((s) => s.values.ball_speed)),
+      carry: meanOrNull(list.map((s) => s.values.carry)),
+      leadPctAtImpact: meanOrNull(fx('lead_pct_at_impact')),
+      tempoRatio: meanOrNull(fx('tempo_ratio')),
+    };
+  });
+  sessions.sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId);
+  return { sessions };
 }

@@ -1,7 +1,7 @@
 import { spawnSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
-import { outcomesResponseSchema, rankingResponseSchema, sessionShotsSchema, shotImportResultSchema, shotProfileCreatedSchema, shotProfileDeletedSchema, shotProfilesResponseSchema, shotUnitsResponseSchema } from '@/lib/contracts/shots';
+import { outcomeSessionsResponseSchema, outcomesResponseSchema, rankingResponseSchema, sessionShotsSchema, shotImportResultSchema, shotProfileCreatedSchema, shotProfileDeletedSchema, shotProfilesResponseSchema, shotUnitsResponseSchema } from '@/lib/contracts/shots';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
@@ -187,6 +187,17 @@ describe('GET /api/athletes/:id/outcomes', () => {
     expect(none.rows.every((r) => r.n === 0)).toBe(true);
     expect((await coach().json(`/api/athletes/${athleteId}/outcomes?metric=nope&outcome=carry`)).status).toBe(422);
   });
+
+  it('lists the mean results per session next to the pressure measures', async () => {
+    const res = await coach().json(`/api/athletes/${athleteId}/outcomes/sessions`);
+    const body = outcomeSessionsResponseSchema.parse(res.body);
+    expect(body).toEqual(res.body);
+    expect(body.sessions).toHaveLength(1);
+    expect(body.sessions[0].shots).toBe(impacts.length - 1);
+    // mean carry of the paired shots, from the constructed yards (NIST SP 811: 1 yd = 0.9144 m)
+    const paired = [...carryYdBySwing.values()];
+    expect(body.sessions[0].carry).toBeCloseTo((paired.reduce((a, b) => a + b, 0) / paired.length) * YD, 9);
+  });
 });
 
 describe('contracts of the shot profile and unit routes', () => {
@@ -223,6 +234,7 @@ describe('role matrix', () => {
     { method: 'PATCH', path: () => '/api/sessions/1/shots', body: () => ({ refind: true }), expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 } },
     { method: 'GET', path: () => `/api/athletes/${athleteId}/outcomes?metric=tempo_ratio&outcome=carry`, expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 404, researcher: 403 } },
     { method: 'GET', path: () => '/api/athletes/1/outcomes?metric=tempo_ratio&outcome=carry', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
+    { method: 'GET', path: () => `/api/athletes/${athleteId}/outcomes/sessions`, expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 404, researcher: 403 } },
     { method: 'GET', path: () => '/api/athletes/1/outcomes/ranking?outcome=ball_speed', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 200, researcher: 403 } },
     { method: 'GET', path: () => '/api/shot-profiles', expected: { none: 401, admin: 403, coach: 200, coach2: 200, student: 403, researcher: 403 } },
     { method: 'POST', path: () => '/api/shot-profiles', body: () => ({ name: 'Matrix', profile: PROFILE }), expected: { none: 401, admin: 403, coach: 201, coach2: 201, student: 403, researcher: 403 } },

@@ -11,7 +11,8 @@ import { drainQueue } from '../../lib/jobs/worker';
 import type { RecordingOptions } from '../../lib/recordings/options';
 import { DISTRACTORS, generateSession } from '../../lib/signal/synthetic';
 import type { RawFileStore } from '../../lib/storage/types';
-import { DEMO_ATHLETES } from './scenario';
+import { DEMO_ATHLETES, DEMO_SESSIONS } from './scenario';
+import { seedDemoShots } from './shots';
 import { seedDemoSwingNotes } from './swing-notes';
 
 export interface DemoRecording {
@@ -36,6 +37,13 @@ export const DEMO_RECORDINGS: readonly DemoRecording[] = [
   { id: 6, sessionId: 3, athleteId: 1, filename: 'ada-front-nine.csv', seed: 106, swings: 6, durationS: 180 },
 ];
 
+/** When each demo recording began: 10:00 UTC on its session's date, the next block of the same session 4 minutes later. */
+export function recordedAt(demo: DemoRecording): string {
+  const date = DEMO_SESSIONS.find((s) => s.id === demo.sessionId)!.sessionDate;
+  const block = DEMO_RECORDINGS.filter((d) => d.sessionId === demo.sessionId).indexOf(demo);
+  return `${date}T10:${String(4 * block).padStart(2, '0')}:00Z`;
+}
+
 /** Adds the demo recordings to a freshly seeded demo database and processes them. Returns how many ended ready. */
 export async function seedDemoRecordings(knex: Knex, store: RawFileStore): Promise<number> {
   const dir = mkdtempSync(join(tmpdir(), 'stanceline-demo-'));
@@ -53,6 +61,7 @@ export async function seedDemoRecordings(knex: Knex, store: RawFileStore): Promi
         withMarker: false,
         distractors: DISTRACTORS,
         durationS: demo.durationS,
+        metadata: { recorded_at: recordedAt(demo) },
       }).csv();
       const path = join(dir, demo.filename);
       writeFileSync(path, csv);
@@ -77,6 +86,7 @@ export async function seedDemoRecordings(knex: Knex, store: RawFileStore): Promi
     }
     await drainQueue({ db: knex, store, workerId: 'demo-seed', pollMs: 100, lockTimeoutS: 60 });
     await seedDemoSwingNotes(knex);
+    await seedDemoShots(knex, store);
     const [row] = await knex('recordings').where({ status: 'ready' }).whereIn('id', DEMO_RECORDINGS.map((d) => d.id)).count({ n: '*' });
     return Number(row.n);
   } finally {

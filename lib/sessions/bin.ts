@@ -3,7 +3,7 @@ import type { RawFileStore } from '@/lib/storage/types';
 import { BIN_DAYS } from '@/lib/contracts/sessions';
 
 // The sweep of the bin: sessions and recordings deleted more than BIN_DAYS days ago are removed for good, rows first
-// (one transaction; the foreign keys cascade to swings, events, series, labels, notes and jobs), then their raw
+// (one transaction; the foreign keys cascade to swings, events, series, labels, notes, jobs and shots), then their raw
 // files. A file left behind by a crash between the two is harmless; a row without its file would not be.
 
 export type SweepResult = { sessions: number; recordings: number; files: number };
@@ -21,6 +21,16 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
       .forUpdate()
       .select('id', 'storage_key');
     keys.push(...recordings.map((r) => String(r.storage_key)));
+    // shot logs: those of swept sessions (refused files included) and those binned on their own (lib/shots)
+    const shotImports = await trx('shot_imports')
+      .where((q) => {
+        q.where((b) => b.whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff));
+        if (sessions.length > 0) q.orWhereIn('session_id', sessions);
+      })
+      .forUpdate()
+      .select('id', 'storage_key');
+    keys.push(...shotImports.map((r) => String(r.storage_key)));
+    if (shotImports.length > 0) await trx('shot_imports').whereIn('id', shotImports.map((r) => Number(r.id))).delete();
     if (recordings.length > 0) await trx('recordings').whereIn('id', recordings.map((r) => Number(r.id))).delete();
     if (sessions.length > 0) await trx('practice_sessions').whereIn('id', sessions).delete();
     return { sessions: sessions.length, recordings: recordings.length };

@@ -17,3 +17,4 @@ export * from './bands';
 export * from './similarity';
 export * from './analyze';
 export * from './nearest';
+export * from './align-intervals';

@@ -37,6 +37,10 @@ const APP_TABLES = [
   'export_audit',
   // the stored viewer payload of each swing (GET /api/swings/:id)
   'swing_payloads',
+  // launch-monitor shots: saved shot profiles, imports (raw file kept) and shots paired with swings
+  'shot_profiles',
+  'shot_imports',
+  'shots',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
@@ -48,6 +52,8 @@ const ALTERATIONS: [string, string, string][] = [
   // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
   ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
   ['add_recordings_binned_at', 'recordings', 'binned_at'],
+  // the units a user reads shot values in
+  ['add_users_shot_units', 'users', 'shot_units'],
 ];
 
 let scratch: ScratchDatabase;

@@ -10,6 +10,7 @@ import { meResponseSchema } from '@/lib/contracts/me';
 import { recordingViewSchema, sessionRecordingsSchema } from '@/lib/contracts/recordings';
 import { swingViewResponseSchema } from '@/lib/contracts/swings';
 import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
+import { outcomeSessionsResponseSchema, rankingResponseSchema, sessionShotsSchema, shotProfilesResponseSchema } from '@/lib/contracts/shots';
 import { userListResponseSchema } from '@/lib/contracts/users';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { type HttpSession, signedIn } from './support/http-session';
@@ -50,6 +51,13 @@ describe('API answers match lib/contracts', () => {
     await conforms(coach, '/api/athletes', athleteListResponseSchema);
     await conforms(coach, '/api/athletes/1', athleteResponseSchema);
     await conforms(student, '/api/athletes/1/sessions', sessionListResponseSchema);
+  });
+
+  it('shots and pressure (tests/http/shots.test.ts checks the answers with shots in them)', async () => {
+    await conforms(student, '/api/sessions/1/shots', sessionShotsSchema);
+    await conforms(coach, '/api/shot-profiles', shotProfilesResponseSchema);
+    await conforms(student, '/api/athletes/1/outcomes/ranking?outcome=carry', rankingResponseSchema);
+    await conforms(coach, '/api/athletes/1/outcomes/sessions', outcomeSessionsResponseSchema);
   });
 
   it('users', async () => {

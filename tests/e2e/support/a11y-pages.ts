@@ -69,6 +69,13 @@ export const A11Y_CHECKS: A11yCheck[] = [
   { name: 'coach athlete edit', route: '/athletes/[id]/edit', as: 'coach', path: (f) => `/athletes/${f.athleteId}/edit` },
   { name: 'coach athlete compare', route: '/athletes/[id]/compare', as: 'coach', path: (f) => `/athletes/${f.athleteId}/compare` },
   { name: 'coach athlete progress', route: '/athletes/[id]/progress', as: 'coach', path: (f) => `/athletes/${f.athleteId}/progress` },
+  {
+    name: 'coach athlete shots and pressure',
+    route: '/athletes/[id]/outcomes',
+    as: 'coach',
+    path: (f) => `/athletes/${f.athleteId}/outcomes`,
+    ready: (page) => page.getByTestId('correlation-note').waitFor(),
+  },
   { name: 'coach upload', route: '/upload', as: 'coach', path: () => '/upload' },
   {
     name: 'coach upload, a file chosen and an option refused on its field',
@@ -169,6 +176,7 @@ export const A11Y_CHECKS: A11yCheck[] = [
   { name: 'student athlete', route: '/athletes/[id]', as: 'student', path: (f) => `/athletes/${f.athleteId}` },
   { name: 'student compare', route: '/athletes/[id]/compare', as: 'student', path: (f) => `/athletes/${f.athleteId}/compare` },
   { name: 'student progress', route: '/athletes/[id]/progress', as: 'student', path: (f) => `/athletes/${f.athleteId}/progress` },
+  { name: 'student shots and pressure', route: '/athletes/[id]/outcomes', as: 'student', path: (f) => `/athletes/${f.athleteId}/outcomes`, ready: (page) => page.getByTestId('correlation-note').waitFor() },
   { name: 'student session', route: '/sessions/[id]', as: 'student', path: (f) => `/sessions/${f.sessionId}` },
   { name: 'student lesson summary', route: '/sessions/[id]/summary', as: 'student', path: (f) => `/sessions/${f.sessionId}/summary?swings=${f.swingIds[0]}` },
   { name: 'student swing viewer', route: '/swings/[id]', as: 'student', path: (f) => `/swings/${f.swingIds[3]}`, ready: viewer },

@@ -38,6 +38,9 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
             <Link href={`/athletes/${athlete.id}/compare`} className={buttonClass('secondary')}>
               Compare sets
             </Link>
+            <Link href={`/athletes/${athlete.id}/outcomes`} className={buttonClass('secondary')}>
+              Shots and pressure
+            </Link>
             {viewer.role === 'coach' && (
             <div className="flex gap-2">
               <Link href={`/upload?athlete=${athlete.id}`} className={buttonClass('primary')}>

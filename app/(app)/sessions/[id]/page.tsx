@@ -16,6 +16,10 @@ import { SessionActions } from '@/components/sessions/session-actions';
 import { idParamSchema } from '@/lib/http';
 import { getSessionRecordingsView } from '@/lib/recordings/views';
 import { isMinor } from '@/lib/contracts/athletes';
+import { ShotPairingPanel } from '@/components/shots/shot-pairing-panel';
+import { db } from '@/lib/db/client';
+import { sessionShotsView } from '@/lib/shots/session-shots';
+import { shotUnitsOf } from '@/lib/shots/units-preference';
 
 export const metadata: Metadata = { title: 'Session' };
 
@@ -32,6 +36,7 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
   const session = await findSession(view.session.id);
   if (!session) notFound();
   const context = session.context;
+  const shots = await sessionShotsView(db, view.session.id, await shotUnitsOf(viewer));
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-muted">
@@ -63,6 +68,7 @@ export default async function SessionPage({ params }: { params: Promise<{ id: st
         <CoachingCaution />
         {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
         <SessionRecordingsPanel sessionId={view.session.id} initial={view} canEdit={viewer.role === 'coach'} />
+        <ShotPairingPanel sessionId={view.session.id} initial={shots} canEdit={viewer.role === 'coach'} />
         <Card title="Drills before this session">
           <DrillReport sessionId={view.session.id} />
         </Card>

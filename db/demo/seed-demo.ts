@@ -8,6 +8,11 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'mail_log',
+  'shares',
+  'password_resets',
+  'invitations',
+  'rate_limits',
   'drill_assignments',
   'drills',
   'bands',

@@ -31,6 +31,12 @@ const APP_TABLES = [
   // the swing finder's rejected candidates and the coach's promotions
   'recording_candidates',
   'candidate_promotions',
+  // accounts by e-mail: invitations, password resets, shares, the notification log, the reset rate limiter's counters
+  'invitations',
+  'password_resets',
+  'shares',
+  'mail_log',
+  'rate_limits',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
@@ -42,6 +48,8 @@ const ALTERATIONS: [string, string, string][] = [
   // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
   ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
   ['add_recordings_binned_at', 'recordings', 'binned_at'],
+  // a student's opt-out of drill reminder mails
+  ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
 ];
 
 let scratch: ScratchDatabase;

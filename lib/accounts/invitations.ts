@@ -197,3 +197,10 @@ export async function acceptInvitation(input: AcceptInvitationInput, now = new D
     return { user: { id: Number(userId), email: invitation.email, name, role: invitation.role }, athleteId };
   });
 }
+
+/** Players the viewer may invite a student for: the academy's (admin) or the roster's (coach), with their link state. */
+export async function invitablePlayers(viewer: Viewer): Promise<{ id: number; displayName: string; linked: boolean }[]> {
+  const q = db('athletes as a').where('a.academy_id', viewer.academyId).orderBy('a.display_name').select('a.id', 'a.display_name', 'a.user_id');
+  if (viewer.role === 'coach') q.whereIn('a.id', db('coach_athletes').where({ coach_user_id: viewer.id }).select('athlete_id'));
+  return (await q).map((r: { id: number; display_name: string; user_id: number | null }) => ({ id: Number(r.id), displayName: r.display_name, linked: r.user_id !== null }));
+}

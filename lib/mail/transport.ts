@@ -7,12 +7,16 @@ import type { MailContent } from './compose';
 
 const DEFAULT_FROM = 'Stanceline <no-reply@stanceline.invalid>';
 
-const globalForMail = globalThis as typeof globalThis & { __stancelineMail?: Transporter | null };
+// One transport per relay address (cached on globalThis like the db client; keyed so a changed relay gets its own).
+const globalForMail = globalThis as typeof globalThis & { __stancelineMail?: Map<string, Transporter | null> };
 
 function transport(): Transporter | null {
-  if (globalForMail.__stancelineMail !== undefined) return globalForMail.__stancelineMail;
   const env = getEnv();
-  globalForMail.__stancelineMail = env.SMTP_HOST
+  const key = `${env.SMTP_HOST ?? ''}:${env.SMTP_PORT}:${env.SMTP_USER ?? ''}`;
+  globalForMail.__stancelineMail ??= new Map();
+  const known = globalForMail.__stancelineMail.get(key);
+  if (known !== undefined) return known;
+  const created = env.SMTP_HOST
     ? nodemailer.createTransport({
         host: env.SMTP_HOST,
         port: env.SMTP_PORT,
@@ -24,7 +28,8 @@ function transport(): Transporter | null {
         socketTimeout: 20_000,
       })
     : null;
-  return globalForMail.__stancelineMail;
+  globalForMail.__stancelineMail.set(key, created);
+  return created;
 }
 
 export type SendResult = { sent: true; messageId: string } | { sent: false; reason: 'not-configured' };

@@ -1,6 +1,6 @@
 // The demo Outbox: the .eml files the local SMTP fake kept in MAIL_DIR, newest first, parsed with mailparser.
 import 'server-only';
-import { readdir, readFile } from 'node:fs/promises';
+import { readdir, readFile, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { simpleParser } from 'mailparser';
 import { getEnv } from '@/lib/env';
@@ -24,12 +24,14 @@ export async function listOutbox(dir = getEnv().MAIL_DIR): Promise<OutboxMessage
   names.sort().reverse(); // file names start with the UTC arrival time
   const messages: OutboxMessage[] = [];
   for (const name of names.slice(0, MAX_LISTED)) {
-    const parsed = await simpleParser(await readFile(join(dir, name)));
+    const path = join(dir, name);
+    const parsed = await simpleParser(await readFile(path));
     const to = Array.isArray(parsed.to) ? parsed.to.map((a) => a.text).join(', ') : (parsed.to?.text ?? '');
     const text = parsed.text ?? '';
     messages.push({
       id: name.replace(/\.eml$/, ''),
-      receivedAt: (parsed.date ?? new Date(0)).toISOString(),
+      // when the fake wrote it (the Date header is the sender's clock, to the second)
+      receivedAt: (await stat(path)).mtime.toISOString(),
       from: parsed.from?.text ?? '',
       to,
       subject: parsed.subject ?? '',

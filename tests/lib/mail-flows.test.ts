@@ -233,7 +233,7 @@ describe('drill reminders', () => {
   it('at most one a day, none after opting out', async () => {
     const { notifyDrillAssigned, setMailPreferences } = await import('@/lib/accounts/drill-mail');
     const { db } = await import('@/lib/db/client');
-    const drill = await db('drills').first('id');
+    const drill = (await db('drills').first('id'))!;
     const assign = async (due: string) => Number((await db('drill_assignments').insert({ drill_id: drill.id, athlete_id: 1, assigned_by: 2, assigned_at: '2026-12-02', due_date: due }))[0]);
     seen = new Set(readdirSync(mailDir));
     const day = new Date('2026-12-02T09:00:00Z');
@@ -253,7 +253,7 @@ describe('drill reminders', () => {
   it('the daily run mails students with a drill due tomorrow', async () => {
     const { sendDueTomorrowReminders } = await import('@/lib/accounts/drill-mail');
     const { db } = await import('@/lib/db/client');
-    const drill = await db('drills').first('id', 'name');
+    const drill = (await db('drills').first('id', 'name'))!;
     await db('drill_assignments').where({ athlete_id: 1 }).delete();
     await db('drill_assignments').insert({ drill_id: drill.id, athlete_id: 1, assigned_by: 2, assigned_at: '2026-12-01', due_date: '2026-12-11' });
     seen = new Set(readdirSync(mailDir));

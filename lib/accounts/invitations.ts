@@ -167,6 +167,8 @@ async function usableInvitation(q: typeof db, hash: string, now: Date, lock = fa
 
 /** Creates the account (and the player link for a student); the token is spent in the same transaction. */
 export async function acceptInvitation(input: AcceptInvitationInput, now = new Date()): Promise<AcceptInvitationResponse> {
+  // A cheap look first, so a link that matches nothing costs no password hash (a public route); checked again under lock.
+  if (!(await usableInvitation(db, hashToken(input.token), now))) throw new InvalidLinkError();
   const passwordHash = await hashPassword(input.password);
   return db.transaction(async (trx) => {
     const invitation = await usableInvitation(trx as unknown as typeof db, hashToken(input.token), now, true);

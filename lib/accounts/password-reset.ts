@@ -81,6 +81,8 @@ export async function resetLinkUsable(token: string, now = new Date()): Promise<
 }
 
 export async function confirmPasswordReset(token: string, password: string, now = new Date()): Promise<{ userId: number; email: string }> {
+  // A cheap look first, so a link that matches nothing costs no password hash (a public route); checked again under lock.
+  if (!(await resetLinkUsable(token, now))) throw new InvalidLinkError();
   const passwordHash = await hashPassword(password);
   return db.transaction(async (trx) => {
     const row = await trx('password_resets as r')

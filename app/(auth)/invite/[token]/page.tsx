@@ -1,11 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { AcceptInvitationForm } from '@/components/accounts/accept-invitation-form';
-import { roleLabels } from '@/components/ui/format';
 import { describeInvitation } from '@/lib/accounts/invitations';
 
 export const metadata: Metadata = { title: 'Accept your invitation' };
 export const dynamic = 'force-dynamic';
+
+const ROLE_WORDS = { admin: 'an academy admin', coach: 'a coach', student: 'a student', researcher: 'a researcher' } as const;
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
@@ -27,9 +28,9 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   const emailName = invitation.email.split('@')[0] ?? '';
   return (
     <>
-      <h1 className="mb-1 text-lg font-semibold">Join {invitation.academyName}</h1>
+      <h1 className="mb-1 text-lg font-semibold">{`Join ${invitation.academyName}`}</h1>
       <p className="mb-5 text-sm text-ink-muted">
-        You are invited as {roleLabels[invitation.role].toLowerCase()}
+        You are invited as {ROLE_WORDS[invitation.role]}
         {invitation.playerName ? `, for the player profile of ${invitation.playerName}` : ''}. Choose a password to create your account.
       </p>
       <AcceptInvitationForm token={token} email={invitation.email} defaultName={invitation.playerName ?? emailName} />

@@ -8,7 +8,8 @@ import { getEnv } from '@/lib/env';
 // the response. Then the page guard: a visitor without a valid session token is sent to the sign-in page. Roles are
 // checked again on the server by every page (requirePageRole) and by every route handler (requireRole); /api is not
 // matched here, so API calls get 401/403 JSON instead of a redirect.
-const PUBLIC_PAGES = /^\/(sign-in|sign-out)(\/|$)/;
+// /invite/<token> and /reset-password[/<token>] are reached from a mail, before the person can sign in.
+const PUBLIC_PAGES = /^\/(sign-in|sign-out|invite|reset-password)(\/|$)/;
 
 export async function proxy(request: NextRequest) {
   const cookies = cookieSettings();

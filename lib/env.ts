@@ -43,6 +43,25 @@ export const serverEnvSchema = z
     // A local-rule choice: below this age at a session's date, a guardian's consent is needed as well (UNCRC Art. 1
     // gives 18; defer to the rules where the academy works and to the study's ethics board).
     RESEARCH_ADULT_AGE: z.coerce.number().int().min(13).max(21).default(18),
+    // Outgoing mail (invitations, password resets, shares, drill reminders) through any SMTP relay. npm start and
+    // npm test point these at the local SMTP fake. Without SMTP_HOST nothing is sent (the app logs that it skipped).
+    SMTP_HOST: z.string().min(1, { error: 'must be a host name such as smtp.example.org' }).optional(),
+    SMTP_PORT: z.coerce.number({ error: 'must be a TCP port number' }).int().min(1).max(65535).default(587),
+    // true: TLS from the first byte (usually port 465); false: plain, upgraded with STARTTLS when the relay offers it
+    SMTP_SECURE: z.enum(['true', 'false'], { error: 'must be true or false' }).default('false'),
+    SMTP_USER: z.string().min(1).optional(),
+    SMTP_PASSWORD: z.string().min(1).optional(),
+    // The sender: "Name <address>" or a bare address.
+    MAIL_FROM: z
+      .string()
+      .refine((value) => /^(?:[^<>]*<[^\s<>@]+@[^\s<>@]+>|[^\s<>@]+@[^\s<>@]+)$/.test(value.trim()), {
+        error: 'must be an address or "Name <address>", e.g. Academy <no-reply@example.org>',
+      })
+      .optional(),
+    // Where the local SMTP fake keeps each message as an .eml file (the Outbox page reads this folder in demo mode).
+    MAIL_DIR: z.string().min(1).default('.data/mail'),
+    // Demo mode: the admin's Outbox page shows the mails the SMTP fake kept. npm start and npm test turn it on with the fake.
+    DEMO_MODE: z.enum(['true', 'false'], { error: 'must be true or false' }).default('false'),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.NEXTAUTH_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
@@ -50,6 +69,12 @@ export const serverEnvSchema = z
     }
     if (env.NODE_ENV === 'production' && !env.RESEARCH_CODE_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
       ctx.addIssue({ code: 'custom', path: ['RESEARCH_CODE_SECRET'], message: 'is required in production (npm start generates one)' });
+    }
+    if (!!env.SMTP_USER !== !!env.SMTP_PASSWORD) {
+      ctx.addIssue({ code: 'custom', path: ['SMTP_PASSWORD'], message: 'SMTP_USER and SMTP_PASSWORD are set together (or neither, for a relay without sign-in)' });
+    }
+    if (env.NODE_ENV === 'production' && env.SMTP_HOST && env.DEMO_MODE !== 'true' && !env.MAIL_FROM) {
+      ctx.addIssue({ code: 'custom', path: ['MAIL_FROM'], message: 'is required with SMTP_HOST in production (the sender your relay accepts)' });
     }
     if (env.STORAGE_S3_BUCKET && !!env.STORAGE_S3_ACCESS_KEY_ID !== !!env.STORAGE_S3_SECRET_ACCESS_KEY) {
       ctx.addIssue({

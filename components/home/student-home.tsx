@@ -1,4 +1,8 @@
+import { DrillMailToggle } from '@/components/accounts/drill-mail-toggle';
+import { SharedWithMe } from '@/components/accounts/shared-with-me';
 import { AthleteOverview } from '@/components/athletes/athlete-overview';
+import { getMailPreferences } from '@/lib/accounts/drill-mail';
+import { listSharesForStudent } from '@/lib/accounts/shares';
 import { Card, PageHeader } from '@/components/ui/card';
 import type { Viewer } from '@/lib/auth/viewer';
 import { listAthletesForViewer } from '@/lib/db/athletes';
@@ -16,10 +20,18 @@ export async function StudentHome({ viewer }: { viewer: Viewer }) {
       </>
     );
   }
-  const sessions = await listSessionsForAthlete(athlete.id);
+  const [sessions, shares, preferences] = await Promise.all([listSessionsForAthlete(athlete.id), listSharesForStudent(viewer), getMailPreferences(viewer)]);
   return (
     <>
       <PageHeader title={`Hello, ${viewer.name}`} subtitle="Your player profile and sessions" />
+      <div className="mb-6 grid gap-4 lg:grid-cols-2">
+        <Card title="From your coach">
+          <SharedWithMe shares={shares} />
+        </Card>
+        <Card title="Mail from your coach">
+          <DrillMailToggle initial={preferences.drillReminders} />
+        </Card>
+      </div>
       <AthleteOverview athlete={athlete} sessions={sessions} />
     </>
   );

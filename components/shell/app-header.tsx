@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { Wordmark } from '@/components/brand/logo';
 import { roleLabels } from '@/components/ui/format';
 import type { Viewer } from '@/lib/auth/viewer';
+import { getEnv } from '@/lib/env';
 import { AppNav } from './app-nav';
 import { navItemsByRole } from './nav-items';
 
@@ -13,7 +14,7 @@ export function AppHeader({ viewer }: { viewer: Viewer }) {
           <Link href="/" aria-label="Stanceline home">
             <Wordmark />
           </Link>
-          <AppNav items={navItemsByRole[viewer.role]} />
+          <AppNav items={navItemsByRole[viewer.role].filter((item) => !item.demoOnly || getEnv().DEMO_MODE === 'true')} />
         </div>
         <div className="flex items-center gap-3 text-sm">
           <span className="text-right leading-tight">

@@ -1,6 +1,7 @@
 import type { Role } from '@/lib/contracts/users';
 
-export type NavItem = { href: string; label: string };
+/** demoOnly: listed only in demo mode (DEMO_MODE=true) */
+export type NavItem = { href: string; label: string; demoOnly?: true };
 
 // What each role can open; pages check the role again on the server.
 export const navItemsByRole: Record<Role, NavItem[]> = {
@@ -12,6 +13,7 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
     { href: '/targets', label: 'Targets' },
     { href: '/bands', label: 'Bands' },
     { href: '/drills', label: 'Drills' },
+    { href: '/invitations', label: 'Invitations' },
   ],
   student: [
     { href: '/', label: 'My profile' },
@@ -21,6 +23,8 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
   admin: [
     { href: '/', label: 'Overview' },
     { href: '/users', label: 'Accounts' },
+    { href: '/invitations', label: 'Invitations' },
+    { href: '/outbox', label: 'Outbox', demoOnly: true },
   ],
   researcher: [{ href: '/', label: 'Research' }],
 };

@@ -5,6 +5,7 @@ import { getEnv } from '@/lib/env';
 import { getStore } from '@/lib/storage';
 import { sweepBin } from '@/lib/sessions/bin';
 import { defaultThreads, getTaskPool } from './pool';
+import { sendDueTomorrowReminders } from '@/lib/accounts/drill-mail';
 import { startWorker, type Worker } from './worker';
 
 const BIN_SWEEP_EVERY_MS = 60 * 60 * 1000;
@@ -33,6 +34,13 @@ export function startAppWorker(): Worker | null {
       .catch((error) => console.error('[stanceline bin] sweep failed', error));
   sweep();
   setInterval(sweep, BIN_SWEEP_EVERY_MS).unref();
+  // Drill reminders for drills due tomorrow: hourly, so a restart never skips a day; mail_log keeps it to one a day.
+  const remind = () =>
+    void sendDueTomorrowReminders(new Date(), db)
+      .then((sent) => sent > 0 && console.log(`[stanceline mail] sent ${sent} drill reminders`))
+      .catch((error) => console.error('[stanceline mail] drill reminders failed', error));
+  remind();
+  setInterval(remind, BIN_SWEEP_EVERY_MS).unref();
   console.log(`[stanceline worker] ${worker.id} polling every ${env.WORKER_POLL_MS} ms, ${runner.threads} job thread(s), raw files in ${getStore().description}`);
   return worker;
 }

@@ -2,6 +2,7 @@
 // Each fake starts on loopback and returns the env variables that point the app at it.
 import { dirname, join, resolve } from 'node:path';
 import { startS3Fake } from './fakes/s3';
+import { startSmtpFake } from './fakes/smtp';
 
 export interface LocalFakes {
   env: Record<string, string>;
@@ -21,7 +22,19 @@ export function s3FakeDir(dir: string, env: Record<string, string | undefined> =
 const startS3 = (dir: string) =>
   process.env.STORAGE_S3_BUCKET || process.env.LOCAL_S3_FAKE === 'off' ? Promise.resolve(null) : startS3Fake(s3FakeDir(dir));
 
-const STARTERS: FakeStarter[] = [startS3];
+// Mail: an SMTP fake that keeps each message as an .eml file, unless a real relay is configured (SMTP_HOST) or
+// LOCAL_SMTP_FAKE=off. Its messages go to MAIL_DIR when set; else `npm start` keeps them in .data/mail and any other
+// fakes' folder (a test run's, a second instance's) gets its own `mail` folder inside.
+export function mailFakeDir(dir: string, env: Record<string, string | undefined> = process.env): string {
+  if (env.MAIL_DIR) return resolve(env.MAIL_DIR);
+  if (resolve(dir) === resolve(join('.data', 'fakes'))) return resolve(join('.data', 'mail'));
+  return join(resolve(dir), 'mail');
+}
+
+const startSmtp = (dir: string) =>
+  process.env.SMTP_HOST || process.env.LOCAL_SMTP_FAKE === 'off' ? Promise.resolve(null) : startSmtpFake(mailFakeDir(dir));
+
+const STARTERS: FakeStarter[] = [startS3, startSmtp];
 
 /**
  * The fakes' folder of `npm start`: LOCAL_FAKES_DIR, else next to a MARIADB_DIR that picks another database (so a

@@ -21,6 +21,11 @@ export function runCapture(
     child.stderr?.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
     child.on('error', reject);
     child.on('close', (code, signal) => resolve({ code, signal, stdout, stderr }));
+    // A child that exits before reading its stdin (mariadb-admin ping against a server still starting) makes this
+    // write fail with EPIPE; its exit code already says what happened, so the pipe error is not a failure of ours.
+    child.stdin?.on('error', (error: NodeJS.ErrnoException) => {
+      if (error.code !== 'EPIPE') reject(error);
+    });
     child.stdin?.end(options.input ?? '');
   });
 }

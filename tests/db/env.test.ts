@@ -19,7 +19,23 @@ describe('lib/env parseEnv', () => {
       WORKER_POLL_MS: 1000,
       JOB_LOCK_TIMEOUT_S: 60,
       JOB_MAX_ATTEMPTS: 3,
+      SMTP_PORT: 587,
+      SMTP_SECURE: 'false',
+      MAIL_DIR: '.data/mail',
+      DEMO_MODE: 'false',
     });
+  });
+
+  it('SMTP settings: a port number, user and password together, a sender in production', () => {
+    expect(parseEnv({ DATABASE_URL: url, SMTP_HOST: 'relay.example.org', SMTP_PORT: '465', SMTP_SECURE: 'true' })).toMatchObject({ SMTP_PORT: 465, SMTP_SECURE: 'true' });
+    expect(() => parseEnv({ DATABASE_URL: url, SMTP_PORT: 'smtp' })).toThrow(/SMTP_PORT/);
+    expect(() => parseEnv({ DATABASE_URL: url, SMTP_HOST: 'relay.example.org', SMTP_USER: 'app' })).toThrow(/SMTP_PASSWORD: SMTP_USER and SMTP_PASSWORD are set together/);
+    expect(() => parseEnv({ DATABASE_URL: url, MAIL_FROM: 'not an address' })).toThrow(/MAIL_FROM/);
+    expect(parseEnv({ DATABASE_URL: url, MAIL_FROM: 'Harrow Vale <desk@example.org>' }).MAIL_FROM).toBe('Harrow Vale <desk@example.org>');
+    const production = { DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'x'.repeat(32), SMTP_HOST: 'relay.example.org' };
+    expect(() => parseEnv(production)).toThrow(/MAIL_FROM: is required with SMTP_HOST in production/);
+    expect(parseEnv({ ...production, MAIL_FROM: 'desk@example.org' }).MAIL_FROM).toBe('desk@example.org');
+    expect(() => parseEnv({ DATABASE_URL: url, DEMO_MODE: 'on' })).toThrow(/DEMO_MODE: must be true or false/);
   });
 
   it('wants both S3 keys or neither', () => {

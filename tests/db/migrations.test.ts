@@ -41,6 +41,12 @@ const APP_TABLES = [
   'shot_profiles',
   'shot_imports',
   'shots',
+  // accounts by e-mail: invitations, password resets, shares, the notification log, the reset rate limiter's counters
+  'invitations',
+  'password_resets',
+  'shares',
+  'mail_log',
+  'rate_limits',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
@@ -54,6 +60,8 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_recordings_binned_at', 'recordings', 'binned_at'],
   // the units a user reads shot values in
   ['add_users_shot_units', 'users', 'shot_units'],
+  // a student's opt-out of drill reminder mails
+  ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
 ];
 
 let scratch: ScratchDatabase;

@@ -13,7 +13,7 @@ import { sampleRecording } from './support/recordings-http';
 type Actor = 'none' | 'admin' | 'coach' | 'coach2' | 'student' | 'researcher';
 const actors: Actor[] = ['none', 'admin', 'coach', 'coach2', 'student', 'researcher'];
 
-type Case = { method: 'GET' | 'POST' | 'PATCH'; path: string; body?: () => unknown; expected: Record<Actor, number> };
+type Case = { method: 'GET' | 'POST' | 'PATCH' | 'DELETE'; path: string; body?: () => unknown; expected: Record<Actor, number> };
 
 // Unique per run: the same database may serve several runs.
 const run = Date.now().toString(36);
@@ -31,6 +31,8 @@ const newUser = () => ({
   role: 'coach',
   password: 'a-long-enough-password',
 });
+
+const newInvitation = () => ({ email: `matrix-invite-${run}-${++counter}@stanceline.test`, role: 'student', athleteId: 3 });
 
 // PATCH keeps Ada's seeded stance width, so later tests see the demo data unchanged.
 const cases: Case[] = [
@@ -55,6 +57,22 @@ const cases: Case[] = [
   { method: 'PATCH', path: '/api/users/5', body: () => ({ role: 'researcher' }), expected: { none: 401, admin: 200, coach: 403, coach2: 403, student: 403, researcher: 403 } },
   { method: 'PATCH', path: '/api/users/1', body: () => ({ active: false }), expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 403, researcher: 403 } },
   { method: 'PATCH', path: '/api/users/999999', body: () => ({ active: true }), expected: { none: 401, admin: 404, coach: 403, coach2: 403, student: 403, researcher: 403 } },
+  // accounts by e-mail: invitations (admin any role; coach students for their own roster: athlete 3 is coach@'s)
+  { method: 'GET', path: '/api/invitations', expected: { none: 401, admin: 200, coach: 200, coach2: 200, student: 403, researcher: 403 } },
+  { method: 'POST', path: '/api/invitations', body: newInvitation, expected: { none: 401, admin: 201, coach: 201, coach2: 404, student: 403, researcher: 403 } },
+  { method: 'DELETE', path: '/api/invitations/999999', expected: { none: 401, admin: 404, coach: 404, coach2: 404, student: 403, researcher: 403 } },
+  { method: 'POST', path: '/api/invitations/999999/resend', expected: { none: 401, admin: 404, coach: 404, coach2: 404, student: 403, researcher: 403 } },
+  // public: the token is the credential; a token that matches nothing is 400 for everyone
+  { method: 'POST', path: '/api/invitations/accept', body: () => ({ token: 'A'.repeat(43), password: 'a-long-enough-password' }), expected: { none: 400, admin: 400, coach: 400, coach2: 400, student: 400, researcher: 400 } },
+  { method: 'POST', path: '/api/password-reset', body: () => ({ email: `matrix-reset-${run}-${++counter}@stanceline.test` }), expected: { none: 202, admin: 202, coach: 202, coach2: 202, student: 202, researcher: 202 } },
+  { method: 'POST', path: '/api/password-reset/confirm', body: () => ({ token: 'A'.repeat(43), password: 'a-long-enough-password' }), expected: { none: 400, admin: 400, coach: 400, coach2: 400, student: 400, researcher: 400 } },
+  // sharing: session 1 is Ada's (coach@'s player, linked to student@)
+  { method: 'GET', path: '/api/shares', expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
+  { method: 'POST', path: '/api/shares', body: () => ({ sessionId: 1 }), expected: { none: 401, admin: 403, coach: 201, coach2: 404, student: 403, researcher: 403 } },
+  { method: 'GET', path: '/api/me/mail-preferences', expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
+  { method: 'PATCH', path: '/api/me/mail-preferences', body: () => ({ drillReminders: true }), expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
+  // demo mode (npm test runs the SMTP fake): admins only
+  { method: 'GET', path: '/api/outbox', expected: { none: 401, admin: 200, coach: 403, coach2: 403, student: 403, researcher: 403 } },
 ];
 
 const sessions = new Map<Actor, HttpSession>();

@@ -12,6 +12,12 @@ import { swingViewResponseSchema } from '@/lib/contracts/swings';
 import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
 import { outcomeSessionsResponseSchema, rankingResponseSchema, sessionShotsSchema, shotProfilesResponseSchema } from '@/lib/contracts/shots';
 import { userListResponseSchema } from '@/lib/contracts/users';
+import { acceptInvitationResponseSchema, invitationListResponseSchema, invitationResponseSchema } from '@/lib/contracts/invitations';
+import { mailPreferencesResponseSchema } from '@/lib/contracts/mail-preferences';
+import { outboxResponseSchema } from '@/lib/contracts/outbox';
+import { passwordResetAcceptedSchema } from '@/lib/contracts/password-reset';
+import { shareListResponseSchema, shareResponseSchema } from '@/lib/contracts/shares';
+import { linkIn, mailsNow, waitForMail } from './support/mail';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { type HttpSession, signedIn } from './support/http-session';
 import { sampleRecording, type Sample } from './support/recordings-http';
@@ -127,6 +133,24 @@ describe('API answers match lib/contracts', () => {
     await conforms(coach, `/api/athletes/${sample.athleteId}/compare?a=context:practice&b=context:lesson&metrics=impact.leadPct,tempoRatio`, compareResponseSchema);
     await conforms(coach, `/api/athletes/${sample.athleteId}/progress?metrics=impact.leadPct`, progressResponseSchema);
     expect((await coach.json(`/api/bands/${made.id}`, { method: 'DELETE' })).status).toBe(200);
+  });
+
+  it('invitations, password reset, shares, mail preferences, outbox', async () => {
+    const email = `contract-${Date.now().toString(36)}@stanceline.test`;
+    const before = mailsNow();
+    // a researcher's invitation (accepting one for a player would change the demo roster other tests read)
+    await conforms(admin, '/api/invitations', invitationResponseSchema, json('POST', { email, role: 'researcher' }), 201);
+    await conforms(coach, '/api/invitations', invitationResponseSchema, json('POST', { email: `coach-${email}`, role: 'student', athleteId: 3 }), 201);
+    await conforms(coach, '/api/invitations', invitationListResponseSchema);
+    await conforms(admin, '/api/invitations', invitationListResponseSchema);
+    const { token } = linkIn(await waitForMail(email, before), '/invite');
+    await conforms(coach, '/api/invitations/accept', acceptInvitationResponseSchema, json('POST', { token, password: 'a-long-enough-password' }));
+    await conforms(coach, '/api/password-reset', passwordResetAcceptedSchema, json('POST', { email: `nobody-${email}` }), 202);
+    await conforms(coach, '/api/shares', shareResponseSchema, json('POST', { sessionId: 1, note: 'Contract check' }), 201);
+    await conforms(student, '/api/shares', shareListResponseSchema);
+    await conforms(student, '/api/me/mail-preferences', mailPreferencesResponseSchema);
+    await conforms(student, '/api/me/mail-preferences', mailPreferencesResponseSchema, json('PATCH', { drillReminders: true }));
+    await conforms(admin, '/api/outbox', outboxResponseSchema);
   });
 
   it('errors', async () => {

@@ -17,6 +17,13 @@ const pages: { path: string; expected: Record<Actor, Expect> }[] = [
   { path: '/athletes/5', expected: { none: '-> /sign-in?callbackUrl=%2Fathletes%2F5', admin: '-> /', coach: 404, coach2: 200, student: 404, researcher: '-> /' } },
   { path: '/users', expected: { none: '-> /sign-in?callbackUrl=%2Fusers', admin: 200, coach: '-> /', coach2: '-> /', student: '-> /', researcher: '-> /' } },
   { path: '/sign-in', expected: { none: 200, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
+  { path: '/invitations', expected: { none: '-> /sign-in?callbackUrl=%2Finvitations', admin: 200, coach: 200, coach2: 200, student: '-> /', researcher: '-> /' } },
+  // demo mode (npm test runs the SMTP fake)
+  { path: '/outbox', expected: { none: '-> /sign-in?callbackUrl=%2Foutbox', admin: 200, coach: '-> /', coach2: '-> /', student: '-> /', researcher: '-> /' } },
+  // reached from a mail before anyone can sign in: public
+  { path: '/reset-password', expected: { none: 200, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
+  { path: `/reset-password/${'A'.repeat(43)}`, expected: { none: 200, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
+  { path: `/invite/${'A'.repeat(43)}`, expected: { none: 200, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
 ];
 
 const sessions = new Map<Actor, HttpSession>();

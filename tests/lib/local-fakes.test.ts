@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createS3Store } from '@/lib/storage/s3';
-import { defaultFakesDir, s3FakeDir, startLocalFakes, type LocalFakes } from '@/scripts/lib/local-fakes';
+import { defaultFakesDir, mailFakeDir, s3FakeDir, startLocalFakes, type LocalFakes } from '@/scripts/lib/local-fakes';
 
 // Two app instances on one machine must not share the S3 fake's folder: each gets the folder it is given.
 const started: LocalFakes[] = [];
@@ -28,6 +28,10 @@ describe('local fakes: the S3 fake folder is configurable', () => {
     expect(defaultFakesDir({ LOCAL_FAKES_DIR: '/z/f' })).toBe(resolve('/z/f'));
     expect(defaultFakesDir({ MARIADB_DIR: '/data/second-db' })).toBe(resolve('/data/second-db-fakes'));
     expect(defaultFakesDir({})).toBe(join('.data', 'fakes'));
+    // the SMTP fake: MAIL_DIR, else .data/mail for npm start's own folder, else the given folder's mail/
+    expect(mailFakeDir('/x/fakes', { MAIL_DIR: '/y/mail' })).toBe(resolve('/y/mail'));
+    expect(mailFakeDir(join('.data', 'fakes'), {})).toBe(resolve('.data', 'mail'));
+    expect(mailFakeDir('/x/fakes', {})).toBe(join('/x/fakes', 'mail'));
   });
 
   it('two instances with their own folders do not see each other’s objects', async () => {

@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import type { Metadata } from 'next';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { safeCallbackPath } from '@/lib/auth/callback-url';
@@ -15,6 +16,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       <h1 className="mb-1 text-lg font-semibold">Sign in</h1>
       <p className="mb-5 text-sm text-ink-muted">Use the account your academy created for you.</p>
       <SignInForm callbackUrl={safeCallbackPath(params.callbackUrl)} initialError={error} />
+      <p className="mt-4 text-sm">
+        <Link href="/reset-password" className="inline-flex min-h-11 items-center text-accent underline">
+          Forgotten your password?
+        </Link>
+      </p>
     </>
   );
 }

@@ -51,8 +51,45 @@ export const A11Y_CHECKS: A11yCheck[] = [
     },
   },
 
+  // links from a mail, signed out (a token that matches nothing shows the page's "does not work" state; the forms
+  // behind a real token are checked by tests/e2e/invitations.test.ts)
+  { name: 'reset password request', route: '/reset-password', as: 'signed-out', path: () => '/reset-password' },
+  {
+    name: 'reset password request, form with errors',
+    route: '/reset-password',
+    as: 'signed-out',
+    path: () => '/reset-password',
+    act: async (page) => {
+      await page.getByRole('button', { name: 'Send me a link' }).click();
+      await fieldError(page);
+    },
+  },
+  { name: 'reset password, unusable link', route: '/reset-password/[token]', as: 'signed-out', path: () => `/reset-password/${'A'.repeat(43)}` },
+  { name: 'invitation, unusable link', route: '/invite/[token]', as: 'signed-out', path: () => `/invite/${'A'.repeat(43)}` },
+
   // coach
   { name: 'coach home', route: '/', as: 'coach', path: () => '/' },
+  { name: 'coach invitations', route: '/invitations', as: 'coach', path: () => '/invitations' },
+  {
+    name: 'coach invitations, form with errors',
+    route: '/invitations',
+    as: 'coach',
+    path: () => '/invitations',
+    act: async (page) => {
+      await page.getByRole('button', { name: 'Send invitation' }).click();
+      await fieldError(page);
+    },
+  },
+  {
+    name: 'coach lesson summary, send to student open',
+    route: '/sessions/[id]/summary',
+    as: 'coach',
+    path: (f) => `/sessions/${f.sessionId}/summary?swings=${f.swingIds[0]}`,
+    act: async (page) => {
+      await page.getByTestId('share-with-student').locator('summary').click();
+      await page.getByLabel(/A note for/).waitFor();
+    },
+  },
   { name: 'coach roster', route: '/roster', as: 'coach', path: () => '/roster' },
   { name: 'coach add athlete', route: '/athletes/new', as: 'coach', path: () => '/athletes/new' },
   {
@@ -203,6 +240,18 @@ export const A11Y_CHECKS: A11yCheck[] = [
     act: async (page) => {
       await page.locator('main form button[type="submit"]').first().click();
       await fieldError(page);
+    },
+  },
+
+  { name: 'admin invitations', route: '/invitations', as: 'admin', path: () => '/invitations' },
+  {
+    name: 'admin outbox, a message open',
+    route: '/outbox',
+    as: 'admin',
+    path: () => '/outbox',
+    act: async (page) => {
+      const first = page.getByTestId('outbox').locator('summary').first();
+      if ((await first.count()) > 0) await first.click();
     },
   },
 

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { preload } from 'react-dom';
+import { ShareWithStudent } from '@/components/accounts/share-with-student';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { ProcessingParameters } from '@/components/swings/processing-parameters';
@@ -61,6 +62,7 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
       />
       <div className="space-y-3">
         <CoachingCaution />
+        {viewer.role === 'coach' && <ShareWithStudent target={{ swingId: swing.id }} athleteName={swing.athlete.displayName} />}
         {swing.athlete.dateOfBirth && isMinor(swing.athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={swing.athlete.dateOfBirth} />}
         <SwingWorkbench swingId={swing.id} initial={swing} />
         {viewer.role === 'coach' && (

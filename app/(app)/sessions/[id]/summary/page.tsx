@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { ShareWithStudent } from '@/components/accounts/share-with-student';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { formatNumber, formatTempo } from '@/components/recordings/format';
@@ -81,6 +82,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
       />
       <div className="space-y-5">
         <CoachingCaution />
+        {viewer.role === 'coach' && <ShareWithStudent target={{ sessionId: view.session.id }} athleteName={athlete.displayName} />}
         {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
 
         <Card title="Coach’s notes">

@@ -1,0 +1,100 @@
+// A coach sends the student a lesson summary or one swing by e-mail. The mail holds only a link to the page, which
+// needs sign-in; the student's home lists what was shared, newest first.
+import 'server-only';
+import { requireSession, requireSwing } from '@/lib/auth/access';
+import type { Viewer } from '@/lib/auth/viewer';
+import { db } from '@/lib/db/client';
+import { toIsoDate, toIsoTime } from '@/lib/db/values';
+import { ConflictError } from '@/lib/http';
+import { appUrl, sendShareMail } from '@/lib/mail';
+import type { CreateShareInput, Share } from '@/lib/contracts/shares';
+import { academyName } from './academy';
+
+type ShareRow = {
+  id: number;
+  athlete_id: number;
+  session_id: number | null;
+  swing_id: number | null;
+  swing_session_id: number | null;
+  session_date: unknown;
+  swing_session_date: unknown;
+  sharer_name: string | null;
+  note: string | null;
+  created_at: Date;
+};
+
+function hrefOf(sessionId: number, swingId: number | null): string {
+  return swingId === null ? `/sessions/${sessionId}/summary` : `/swings/${swingId}`;
+}
+
+function toShare(row: ShareRow): Share {
+  const swingId = row.swing_id === null ? null : Number(row.swing_id);
+  const sessionId = Number(row.session_id ?? row.swing_session_id);
+  return {
+    id: Number(row.id),
+    kind: swingId === null ? 'lesson' : 'swing',
+    athleteId: Number(row.athlete_id),
+    sessionId,
+    swingId,
+    sessionDate: toIsoDate(row.session_date ?? row.swing_session_date) ?? '',
+    sharedBy: row.sharer_name,
+    note: row.note,
+    createdAt: toIsoTime(row.created_at) ?? '',
+    href: hrefOf(sessionId, swingId),
+  };
+}
+
+// Binned sessions, recordings and swings drop out of the list (the bin rule in DEVELOPERS.md).
+function shareQuery() {
+  return db('shares as sh')
+    .leftJoin('practice_sessions as p', 'p.id', 'sh.session_id')
+    .leftJoin('swings as s', 's.id', 'sh.swing_id')
+    .leftJoin('recordings as r', 'r.id', 's.recording_id')
+    .leftJoin('practice_sessions as sp', 'sp.id', 'r.session_id')
+    .leftJoin('users as u', 'u.id', 'sh.shared_by')
+    .where((w) => w.whereNotNull('sh.session_id').whereNull('p.binned_at').orWhere((o) => o.whereNotNull('sh.swing_id').whereNull('r.binned_at').whereNull('sp.binned_at')))
+    .select(
+      'sh.id',
+      'sh.athlete_id',
+      'sh.session_id',
+      'sh.swing_id',
+      'r.session_id as swing_session_id',
+      'p.session_date',
+      'sp.session_date as swing_session_date',
+      'u.name as sharer_name',
+      'sh.note',
+      'sh.created_at',
+    )
+    .orderBy([{ column: 'sh.created_at', order: 'desc' }, { column: 'sh.id', order: 'desc' }]);
+}
+
+/** The coach of the athlete shares; the athlete needs a linked student account to receive it (else 409). */
+export async function shareWithStudent(viewer: Viewer, input: CreateShareInput, now = new Date()): Promise<Share> {
+  const { athleteId } = input.swingId !== undefined ? await requireSwing(viewer, input.swingId, 'write') : await requireSession(viewer, input.sessionId!, 'write');
+  const student = await db('athletes as a').join('users as u', 'u.id', 'a.user_id').where('a.id', athleteId).where('u.active', true).first('u.id', 'u.email');
+  if (!student) throw new ConflictError('This player has no student account yet. Invite them first (Invitations), then share again.');
+  const [id] = await db('shares').insert({
+    athlete_id: athleteId,
+    session_id: input.sessionId ?? null,
+    swing_id: input.swingId ?? null,
+    shared_by: viewer.id,
+    recipient_user_id: student.id,
+    note: input.note ? input.note : null,
+    created_at: now,
+  });
+  const share = toShare(await shareQuery().where('sh.id', id).first());
+  await sendShareMail(student.email, {
+    academyName: await academyName(viewer.academyId),
+    coachName: viewer.name,
+    what: share.kind,
+    sessionDate: share.sessionDate,
+    note: share.note,
+    url: appUrl(share.href),
+  });
+  return share;
+}
+
+/** A student's shares, newest first. */
+export async function listSharesForStudent(viewer: Viewer): Promise<Share[]> {
+  return (await shareQuery().where('sh.recipient_user_id', viewer.id)).map(toShare);
+}

@@ -42,6 +42,11 @@ const ALTERATIONS: [string, string, string][] = [
   // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
   ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
   ['add_recordings_binned_at', 'recordings', 'binned_at'],
+  // archived players (kept with their data) and the bin of drills, bands and drill assignments
+  ['add_athletes_archived_at', 'athletes', 'archived_at'],
+  ['add_drills_binned_at', 'drills', 'binned_at'],
+  ['add_bands_binned_at', 'bands', 'binned_at'],
+  ['add_drill_assignments_binned_at', 'drill_assignments', 'binned_at'],
 ];
 
 let scratch: ScratchDatabase;

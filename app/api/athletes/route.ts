@@ -13,6 +13,7 @@ export const GET = withErrors(async (request: Request) => {
     q: url.searchParams.get('q') ?? undefined,
     context: url.searchParams.get('context') || undefined,
     handedness: url.searchParams.get('handedness') || undefined,
+    archived: url.searchParams.get('archived') === 'true' ? true : undefined,
   });
   return json({ athletes: await listAthletesForViewer(viewer, filters) });
 });

@@ -12,6 +12,7 @@ import { SessionBin } from '@/components/sessions/session-bin';
 import { AccountLinkForm } from '@/components/athletes/account-link-form';
 import { linkedAccount } from '@/lib/athletes/account-link';
 import { Card } from '@/components/ui/card';
+import { ArchiveAthlete } from '@/components/athletes/athlete-archive';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
@@ -50,6 +51,11 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
           </div>
         }
       />
+      {viewer.role === 'coach' && athlete.archivedAt && (
+        <div className="mb-4">
+          <ArchiveAthlete athlete={athlete} />
+        </div>
+      )}
       {viewer.role === 'coach' && (
         <div className="mb-4">
           <SessionBin athleteId={athlete.id} justBinned={binned.success ? binned.data : null} />
@@ -61,6 +67,13 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
           <Card title="Student account">
             <AccountLinkForm athleteId={athlete.id} account={account} />
           </Card>
+          {!athlete.archivedAt && (
+            <div className="mt-6">
+              <Card title="Archive">
+                <ArchiveAthlete athlete={athlete} />
+              </Card>
+            </div>
+          )}
         </div>
       )}
     </>

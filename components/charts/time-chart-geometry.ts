@@ -3,6 +3,8 @@ import { innerHeight, innerWidth, timeScale, valueScale, type ChartBox } from '.
 
 export const MARGIN = { top: 8, right: 14, bottom: 8, left: 40 };
 export const LABEL_ROW_PX = 13;
+/** rows of event labels above a chart: top, transition and impact can fall within a few pixels of each other */
+export const LABEL_ROWS = 3;
 export const FONT_PX = 10.5;
 
 export interface GeometryInput {
@@ -14,9 +16,9 @@ export interface GeometryInput {
   showTimeAxis?: boolean;
 }
 
-/** The chart box (two label rows on top when event labels are shown, a tick row below with the time axis) and scales. */
+/** The chart box (three label rows on top when event labels are shown, a tick row below with the time axis) and scales. */
 export function chartGeometry(p: GeometryInput) {
-  const labelRowsPx = p.showEventLabels ? LABEL_ROW_PX * 2 + 4 : 0;
+  const labelRowsPx = p.showEventLabels ? LABEL_ROW_PX * LABEL_ROWS + 4 : 0;
   const box: ChartBox = {
     width: p.width,
     height: p.height,

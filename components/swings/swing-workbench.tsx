@@ -21,7 +21,7 @@ import { CorrectionLog } from './correction-log';
 import { errorText, patchSwing, swingUrl } from './swing-api';
 import { swingViewResponseSchema, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { SwingFacts } from './swing-facts';
-import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries } from './swing-view-model';
+import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries, wholeTraceSeries } from './swing-view-model';
 import { BandPicker } from '@/components/bands/band-picker';
 import { useBandOverlay } from '@/components/bands/band-overlay';
 import { ScorePanel } from '@/components/targets/score-panel';
@@ -76,6 +76,7 @@ function Tables({ swing }: { swing: SwingDetail }) {
 
 function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: SwingView) => void; refresh: () => void }) {
   const series = useMemo(() => traceSeries(swing.series), [swing.series]);
+  const whole = useMemo(() => wholeTraceSeries(swing.overview), [swing.overview]);
   const saved = useMemo(() => eventRecord(swing.events), [swing.events]);
   const auto = useMemo(() => eventRecord(swing.events, 'autoTimeS'), [swing.events]);
   const frames = useMemo(() => sensorFrames(swing.sensorFrames), [swing.sensorFrames]);
@@ -170,6 +171,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
         <SwingTraceViewer
           key={viewerKey}
           series={series}
+          wholeSeries={whole}
           window={win}
           events={saved}
           autoEvents={auto ?? undefined}

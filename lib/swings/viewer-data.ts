@@ -7,6 +7,7 @@ import { jsonColumn, toIsoDate } from '@/lib/db/values';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
 import { sessionSwingNumbers } from '@/lib/recordings/views';
 import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
+import { coarsenDisplay } from './coarsen-display';
 
 // The viewer's parts of GET /api/swings/:id besides the numbers: the swing's full-rate traces, the recording's
 // overview, neighbours for previous/next and the overlay pick-list, the sensor layout and per-sensor forces at events.
@@ -50,10 +51,13 @@ export async function overviewView(recordingId: number): Promise<SwingView['over
     reason: String(c.reason),
     reasonText: REJECT_REASONS[c.reason as RejectReason] ?? String(c.reason),
   }));
-  if (!row) return { time: [], leadPct: [], copX: [], candidates };
+  if (!row) return { time: [], leadPct: [], copX: [], leadHeelPct: [], trailHeelPct: [], copSpeed: [], candidates };
   const data = jsonColumn<Pick<DisplaySeries, 't' | 'traces'>>(row.data)!;
-  const o = overviewOf({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, ['lead_pct', 'cop_x_mm']);
-  return { time: o.time, leadPct: o.traces.lead_pct, copX: o.traces.cop_x_mm, candidates };
+  // the whole recording for the overview strip and the viewer's "Whole recording" zoom, coarsened for display
+  const names = ['lead_pct', 'cop_x_mm', 'lead_heel_pct', 'trail_heel_pct', 'cop_speed_mm_s'] as const;
+  const o = overviewOf(coarsenDisplay({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, names), names);
+  const tr = o.traces;
+  return { time: o.time, leadPct: tr.lead_pct, copX: tr.cop_x_mm, leadHeelPct: tr.lead_heel_pct, trailHeelPct: tr.trail_heel_pct, copSpeed: tr.cop_speed_mm_s, candidates };
 }
 
 export async function siblingsView(swingId: number, recordingId: number, swingIndex: number, athleteId: number): Promise<SwingView['siblings']> {

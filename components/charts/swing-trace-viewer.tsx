@@ -268,7 +268,7 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
           <HeelShareChart {...common} />
           <CopSpeedChart {...common} />
           <div className="flex items-center gap-2 pl-10 pr-3 pt-1">
-            <label htmlFor={`${prefix}-scrubber`} className="text-[11px] text-ink-muted">
+            <label htmlFor={`${prefix}-scrubber`} className="text-sm text-ink-muted">
               Cursor
             </label>
             <input
@@ -301,7 +301,7 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
             idPrefix={prefix}
           />
           <ValuesPanel series={swingSeries} events={events} cursorTime={cursorTime} corrected={corrected} timeZero={zero} />
-          <p id={`${prefix}-keys`} className="text-[11px] leading-snug text-ink-faint">
+          <p id={`${prefix}-keys`} className="text-sm leading-snug text-ink-faint">
             Times in s from address (address = 0 s). ← → one sample · Shift+← → or [ ] event to event · Home / End ends of view
             {editable ? ' · drag a marker (or focus it and press ← →) to move an event · Ctrl+Z undoes' : ''}
             {editable ? ' · * moved by hand' : ''}

@@ -2,10 +2,11 @@
 import { innerHeight, innerWidth, timeScale, valueScale, type ChartBox } from './lib/scales';
 
 export const MARGIN = { top: 8, right: 14, bottom: 8, left: 40 };
-export const LABEL_ROW_PX = 13;
+export const LABEL_ROW_PX = 16;
 /** rows of event labels above a chart: top, transition and impact can fall within a few pixels of each other */
 export const LABEL_ROWS = 3;
-export const FONT_PX = 10.5;
+// 14 px: no text on screen below 14 px, chart labels included
+export const FONT_PX = 14;
 
 export interface GeometryInput {
   width: number;

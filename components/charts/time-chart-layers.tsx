@@ -69,8 +69,8 @@ function ChartLayersInner(p: LayerProps) {
           return (
             <g key={s.name} data-phase={s.name}>
               <rect x={x0} y={0} width={x1 - x0} height={h} fill={PHASE_FILLS[k % 2]} />
-              {p.showPhaseLabels && textWidth(label, 10) < x1 - x0 - 6 && (
-                <text x={(x0 + x1) / 2} y={h - 4} textAnchor="middle" fill={CHART_COLOURS.inkMuted} style={{ fontSize: 10 }}>
+              {p.showPhaseLabels && textWidth(label, FONT_PX) < x1 - x0 - 6 && (
+                <text x={(x0 + x1) / 2} y={h - 4} textAnchor="middle" fill={CHART_COLOURS.inkMuted} style={{ fontSize: FONT_PX }}>
                   {label}
                 </text>
               )}
@@ -119,7 +119,7 @@ function ChartLayersInner(p: LayerProps) {
         {(p.guides ?? []).map((g) => (
           <g key={`g${g.value}`} data-guide={g.value}>
             <line x1={0} x2={w} y1={y(g.value)} y2={y(g.value)} stroke={CHART_COLOURS.inkFaint} strokeDasharray="2 3" />
-            <text x={w - 3} y={y(g.value) - 3} textAnchor="end" fill={CHART_COLOURS.inkMuted} style={{ fontSize: 9.5 }}>
+            <text x={w - 3} y={y(g.value) - 3} textAnchor="end" fill={CHART_COLOURS.inkMuted} style={{ fontSize: FONT_PX }}>
               {g.label}
             </text>
           </g>

@@ -62,9 +62,10 @@ function Tables({ swing }: { swing: SwingDetail }) {
     <>
       <Card title="Phases">
         <MemoPhaseTable phases={swing.phases} />
-        <p className="mt-3 text-xs text-ink-muted">
-          COP = centre of pressure of both feet in the stance frame; path is its travelled length, speed its fastest movement. Lead % is the share of the
-          total load on the lead (target-side) foot. Tempo = (top − address) / (impact − top).
+        <p className="mt-3 text-sm text-ink-muted">
+          COP = the centre of pressure of both feet, measured from the middle of the stance: x toward the target, y toward
+          the toes (<abbr title="stance frame: origin midway between the feet">stance frame</abbr>); path is how far it travels, speed its fastest
+          movement. Lead % is the share of the total load on the lead (target-side) foot. Tempo = (top − address) / (impact − top).
         </p>
       </Card>
       <Card title="Values at the events">

@@ -18,7 +18,8 @@ export interface EventEditBarProps {
   onReset: () => void;
 }
 
-const small = 'rounded-md px-2.5 py-1 text-sm font-medium disabled:cursor-not-allowed';
+// 44 px high: a finger-sized target on a tablet in the bay (WCAG 2.5.5)
+const small = 'min-h-11 rounded-md px-3 py-1 text-sm font-medium disabled:cursor-not-allowed';
 const primary = `${small} bg-accent text-white hover:bg-accent-strong disabled:bg-surface-sunken disabled:text-ink-faint`;
 const secondary = `${small} border border-surface-line bg-surface text-ink hover:bg-surface-sunken disabled:text-ink-faint`;
 

@@ -112,7 +112,7 @@ function CandidateList({ candidates, recordingId, canEdit }: { candidates: Candi
             <span className="tabular-nums">{c.timeS.toFixed(2)} s</span>
             <span>{c.reasonText}</span>
             {canEdit && recordingId !== undefined && (
-              <button type="button" className="rounded-md border border-surface-line px-2 py-0.5 text-ink hover:bg-surface-sunken disabled:opacity-50" disabled={state.busy !== null} onClick={() => promote(c.timeS)} data-testid="promote-candidate">
+              <button type="button" className="min-h-11 rounded-md border border-surface-line px-3 py-1 text-ink hover:bg-surface-sunken disabled:opacity-50" disabled={state.busy !== null} onClick={() => promote(c.timeS)} data-testid="promote-candidate">
                 Count this as a swing
               </button>
             )}

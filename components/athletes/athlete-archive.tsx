@@ -5,7 +5,7 @@
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import useSWR from 'swr';
+import useSWR, { mutate as mutateKey } from 'swr';
 import { Button } from '@/components/ui/button';
 import { ConfirmButton, UndoLine } from '@/components/ui/confirm-button';
 import { formatDate } from '@/components/ui/format';
@@ -14,8 +14,31 @@ import { athleteListResponseSchema, athleteResponseSchema, type AthleteSummary }
 
 const ARCHIVED_URL = '/api/athletes?archived=true';
 
+/** Restore, then refresh every cached athlete list (the roster's filtered views and the archived list). */
 async function restoreAthlete(id: number) {
   await sendJson(`/api/athletes/${id}/restore`, 'POST', undefined, athleteResponseSchema);
+  await mutateKey((key) => typeof key === 'string' && key.startsWith('/api/athletes'));
+}
+
+const useArchived = () => useSWR(ARCHIVED_URL, fetchJson(athleteListResponseSchema));
+
+/** The Undo line at the top of the roster right after archiving a player. */
+export function ArchiveUndo({ justArchived }: { justArchived: number | null }) {
+  const router = useRouter();
+  const { data } = useArchived();
+  const [open, setOpen] = useState(justArchived !== null);
+  const just = data?.athletes.find((a) => a.id === justArchived);
+  if (!open || !just) return null;
+  return (
+    <UndoLine
+      message={`${just.displayName} archived: off the roster, everything kept.`}
+      onUndo={async () => {
+        await restoreAthlete(just.id);
+        router.refresh();
+      }}
+      onDismiss={() => setOpen(false)}
+    />
+  );
 }
 
 export function ArchiveAthlete({ athlete }: { athlete: AthleteSummary }) {
@@ -56,19 +79,17 @@ export function ArchiveAthlete({ athlete }: { athlete: AthleteSummary }) {
   );
 }
 
-/** The roster's list of archived players, each with a way back; the one just archived gets an Undo line. */
+/** The roster's list of archived players, each with a way back (open right after an archive). */
 export function ArchivedPlayers({ justArchived }: { justArchived: number | null }) {
   const router = useRouter();
-  const { data, mutate } = useSWR(ARCHIVED_URL, fetchJson(athleteListResponseSchema));
-  const [undoFor, setUndoFor] = useState<number | null>(justArchived);
+  const { data } = useArchived();
   const [error, setError] = useState<string | null>(null);
   const archived = data?.athletes ?? [];
-  const just = archived.find((a) => a.id === undoFor);
+  const just = archived.find((a) => a.id === justArchived);
   async function restore(id: number) {
     setError(null);
     try {
       await restoreAthlete(id);
-      await mutate();
       router.refresh();
     } catch (e) {
       setError(e instanceof Error ? e.message : 'Could not restore the player.');
@@ -77,7 +98,6 @@ export function ArchivedPlayers({ justArchived }: { justArchived: number | null 
   if (archived.length === 0) return null;
   return (
     <section aria-labelledby="archived-players" className="mt-6 space-y-2" data-testid="archived-players">
-      {just && <UndoLine message={`${just.displayName} archived.`} onUndo={() => restore(just.id)} onDismiss={() => setUndoFor(null)} />}
       <details open={just !== undefined}>
         <summary id="archived-players" className="min-h-11 cursor-pointer py-2 text-sm font-medium text-ink">
           Archived players ({archived.length})

@@ -70,13 +70,15 @@ describe('edit and delete in the browser', () => {
     await page.getByRole('alertdialog').getByText('every session, swing, note and drill is kept').waitFor();
     await page.getByRole('alertdialog').getByRole('button', { name: 'Archive', exact: true }).click();
     await page.waitForURL(`${baseUrl}/roster?archived=${playerId}`);
-    await page.getByTestId('undo-line').getByText(`${playerName} archived.`).waitFor();
+    await page.getByTestId('undo-line').getByText(`${playerName} archived: off the roster, everything kept.`).waitFor();
     expect(await page.getByTestId('athlete-table').getByText(playerName).count()).toBe(0);
     await page.setViewportSize({ width: 1024, height: 768 });
     await page.screenshot({ path: screenshotPath('e2e-roster-archived-1024x768') });
     await page.setViewportSize({ width: 1280, height: 800 });
     await page.getByRole('button', { name: `Bring ${playerName} back to the roster` }).click();
-    await page.getByRole('link', { name: playerName }).first().waitFor();
+    // back in the roster's table, and gone from the archived list
+    await page.getByTestId('athlete-table').getByText(playerName).waitFor();
+    expect(await page.getByTestId('archived-players').count()).toBe(0);
     const roster = (await coachApi.json('/api/athletes')).body as { athletes: { id: number }[] };
     expect(roster.athletes.map((a) => a.id)).toContain(playerId);
   });

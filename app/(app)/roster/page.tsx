@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { RosterBrowser } from '@/components/athletes/roster-browser';
-import { ArchivedPlayers } from '@/components/athletes/athlete-archive';
+import { ArchivedPlayers, ArchiveUndo } from '@/components/athletes/athlete-archive';
 import { buttonClass } from '@/components/ui/button';
 import { Card, PageHeader } from '@/components/ui/card';
 import { requirePageRole } from '@/lib/auth/roles';
@@ -32,6 +32,7 @@ export default async function RosterPage({ searchParams }: { searchParams: Searc
           </Link>
         }
       />
+      <ArchiveUndo justArchived={justArchived.success ? justArchived.data : null} />
       <Card>
         <RosterBrowser
           initial={athletes}

@@ -103,7 +103,7 @@ export function BandList({ viewerId }: { viewerId: number }) {
                 <td className="py-1.5">
                   {b.ownerUserId === viewerId && editing !== b.id && (
                     <div className="flex flex-wrap justify-end gap-2">
-                      <Button type="button" variant="secondary" aria-label={`Rename or share ${b.name}`} onClick={() => setEditing(b.id)}>
+                      <Button type="button" variant="secondary" aria-label={`Edit ${b.name}`} onClick={() => setEditing(b.id)}>
                         Edit
                       </Button>
                       <ConfirmButton

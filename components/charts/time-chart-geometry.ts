@@ -7,6 +7,7 @@ export const LABEL_ROW_PX = 16;
 export const LABEL_ROWS = 3;
 // 14 px: no text on screen below 14 px, chart labels included
 export const FONT_PX = 14;
+export const UNIT_ROW_PX = 20;
 
 export interface GeometryInput {
   width: number;
@@ -23,7 +24,8 @@ export function chartGeometry(p: GeometryInput) {
   const box: ChartBox = {
     width: p.width,
     height: p.height,
-    margin: { ...MARGIN, top: MARGIN.top + labelRowsPx, bottom: p.showTimeAxis ? 24 : MARGIN.bottom },
+    // without event labels, room above the plot for the value axis's unit (14 px text)
+    margin: { ...MARGIN, top: p.showEventLabels ? MARGIN.top + labelRowsPx : UNIT_ROW_PX, bottom: p.showTimeAxis ? 24 : MARGIN.bottom },
   };
   return { box, w: innerWidth(box), h: innerHeight(box), x: timeScale(p.domain, box), y: valueScale(p.yDomain, box) };
 }

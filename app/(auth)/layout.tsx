@@ -9,7 +9,7 @@ export default function AuthLayout({ children }: { children: ReactNode }) {
           <Wordmark size={36} />
         </div>
         <div className="rounded-lg border border-surface-line bg-surface p-6 shadow-sm">{children}</div>
-        <p className="mt-6 text-center text-xs text-ink-faint">Ground-pressure workbench for golf coaching</p>
+        <p className="mt-6 text-center text-sm text-ink-faint">Ground-pressure workbench for golf coaching</p>
       </div>
     </main>
   );

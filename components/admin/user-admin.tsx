@@ -89,7 +89,7 @@ function UserRow({ user, isSelf, onChanged }: { user: AcademyUser; isSelf: boole
 
   return (
     <tr className={user.active ? '' : 'text-ink-faint'}>
-      <td className="py-2.5 pr-4 font-medium">{user.name}{isSelf && <span className="ml-2 text-xs text-ink-muted">(you)</span>}</td>
+      <td className="py-2.5 pr-4 font-medium">{user.name}{isSelf && <span className="ml-2 text-sm text-ink-muted">(you)</span>}</td>
       <td className="py-2.5 pr-4 text-ink-muted">{user.email}</td>
       <td className="py-2.5 pr-4">
         <label className="sr-only" htmlFor={`role-${user.id}`}>Role of {user.name}</label>
@@ -114,7 +114,7 @@ function UserRow({ user, isSelf, onChanged }: { user: AcademyUser; isSelf: boole
             {user.active ? 'Deactivate' : 'Reactivate'}
           </Button>
         )}
-        {error && <p role="alert" className="mt-1 text-xs text-danger">{error}</p>}
+        {error && <p role="alert" className="mt-1 text-sm text-danger">{error}</p>}
       </td>
     </tr>
   );
@@ -128,7 +128,7 @@ export function UserAdmin({ initial, selfId }: { initial: AcademyUser[]; selfId:
       {error && <p role="alert" className="text-sm text-danger">Could not load accounts: {(error as Error).message}</p>}
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm" data-testid="user-table">
-          <thead className="border-b border-surface-line text-xs uppercase tracking-wide text-ink-muted">
+          <thead className="border-b border-surface-line text-sm uppercase tracking-wide text-ink-muted">
             <tr>
               <th scope="col" className="py-2 pr-4 font-medium">Name</th>
               <th scope="col" className="py-2 pr-4 font-medium">Email</th>

@@ -64,7 +64,7 @@ export function AthleteForm({ athleteId, initial }: { athleteId?: number; initia
             <input type="radio" value="left" {...register('handedness')} /> Left-handed
           </label>
         </div>
-        {errors.handedness && <p className="text-xs font-medium text-danger">{errors.handedness.message}</p>}
+        {errors.handedness && <p className="text-sm font-medium text-danger">{errors.handedness.message}</p>}
       </fieldset>
       <Field
         id="stanceWidthMm"

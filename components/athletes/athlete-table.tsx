@@ -11,7 +11,7 @@ export function AthleteTable({ athletes }: { athletes: AthleteSummary[] }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm" data-testid="athlete-table">
-        <thead className="border-b border-surface-line text-xs uppercase tracking-wide text-ink-muted">
+        <thead className="border-b border-surface-line text-sm uppercase tracking-wide text-ink-muted">
           <tr>
             <th scope="col" className="py-2 pr-4 font-medium">Athlete</th>
             <th scope="col" className="py-2 pr-4 font-medium">Plays</th>

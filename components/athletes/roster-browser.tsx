@@ -93,7 +93,7 @@ export function RosterBrowser({ initial, initialFilters }: { initial: AthleteSum
       ) : (
         <div aria-busy={isLoading}>
           <AthleteTable athletes={data?.athletes ?? []} />
-          <p className="mt-3 text-xs text-ink-muted" aria-live="polite">
+          <p className="mt-3 text-sm text-ink-muted" aria-live="polite">
             {data ? `${data.athletes.length} athlete${data.athletes.length === 1 ? '' : 's'}` : 'Loading…'}
           </p>
         </div>

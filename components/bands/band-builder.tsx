@@ -49,7 +49,7 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
         <Field id="band-name" label="Band name" error={errors.name?.message}>
           <input id="band-name" className={inputClass} {...register('name')} aria-invalid={errors.name ? 'true' : 'false'} />
         </Field>
-        <Field id="band-k" label="Width (k SD)" hint="mean ± k standard deviations" error={errors.k?.message}>
+        <Field id="band-k" label="Band width (typical spreads)" hint="1 covers about two thirds of these swings’ values, 2 nearly all (exact: mean ± k SD, sample standard deviation)." error={errors.k?.message}>
           <input id="band-k" type="number" step="0.5" className={inputClass} {...register('k', { valueAsNumber: true })} aria-invalid={errors.k ? 'true' : 'false'} />
         </Field>
         <Field id="band-athlete" label="Swings of">
@@ -69,14 +69,14 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
         <div className="max-h-72 space-y-3 overflow-y-auto">
           {athlete?.sessions.map((s) => (
             <div key={s.id}>
-              <p className="text-xs font-semibold text-ink-muted">{formatDate(s.date)} · {contextLabels[s.context as keyof typeof contextLabels] ?? s.context}</p>
+              <p className="text-sm font-semibold text-ink-muted">{formatDate(s.date)} · {contextLabels[s.context as keyof typeof contextLabels] ?? s.context}</p>
               <ul className="mt-1 flex flex-wrap gap-2">
                 {s.swings.map((w) => (
                   <li key={w.id}>
                     <label className="flex items-center gap-1.5 rounded border border-surface-line px-2 py-1 text-sm">
                       <input type="checkbox" checked={picked.includes(w.id)} onChange={() => toggle(w.id)} data-swing-choice={w.id} aria-label={`Swing ${w.index}, ${formatDate(s.date)}`} />
                       Swing {w.index}
-                      <span className="text-xs text-ink-muted">lead {fmt(w.leadPctAtImpact, 0, ' %')} · tempo {fmt(w.tempoRatio, 1)}</span>
+                      <span className="text-sm text-ink-muted">lead {fmt(w.leadPctAtImpact, 0, ' %')} · tempo {fmt(w.tempoRatio, 1)}</span>
                     </label>
                   </li>
                 ))}
@@ -84,7 +84,7 @@ export function BandBuilder({ athletes }: { athletes: AthleteChoice[] }) {
             </div>
           ))}
         </div>
-        {errors.swingIds && <p role="alert" className="mt-2 text-xs font-medium text-danger" data-field-error="swingIds">{errors.swingIds.message}</p>}
+        {errors.swingIds && <p role="alert" className="mt-2 text-sm font-medium text-danger" data-field-error="swingIds">{errors.swingIds.message}</p>}
       </fieldset>
       <div className="flex items-center gap-3">
         <Button type="submit" disabled={isSubmitting}>{isSubmitting ? 'Building…' : 'Build band'}</Button>

@@ -20,7 +20,7 @@ export function leadReferenceBand(band: BandDetail): ReferenceBand | null {
   if (!curve) return null;
   const l = band.landmarks;
   return {
-    label: `${band.name} (mean ± ${band.k} SD)`,
+    label: `${band.name} (typical range ×${band.k})`,
     axis: 'swing-pct',
     x: Float64Array.from(band.axis),
     lower: Float64Array.from(curve.lower),

@@ -19,12 +19,12 @@ export function BandPicker({ value, onChange, loading }: { value: number | null;
         <option value="">None</option>
         {bands.map((b) => (
           <option key={b.id} value={b.id}>
-            {b.name} ({b.swingCount} swings, ±{b.k} SD)
+            {b.name} ({b.swingCount} swings, typical range ×{b.k})
           </option>
         ))}
       </select>
-      {loading && <span className="text-xs text-ink-muted">loading…</span>}
-      {error != null && <span className="text-xs text-danger">bands unavailable</span>}
+      {loading && <span className="text-sm text-ink-muted">loading…</span>}
+      {error != null && <span className="text-sm text-danger">bands unavailable</span>}
     </label>
   );
 }

@@ -36,7 +36,7 @@ function Swatch({ tone, overlay }: { tone: LegendItem['tone']; overlay?: boolean
 
 export function ChartLegend({ items }: { items: LegendItem[] }) {
   return (
-    <ul className="flex flex-wrap items-center gap-x-3 gap-y-0.5 text-[11px] text-ink-muted">
+    <ul className="flex flex-wrap items-center gap-x-3 gap-y-0.5 text-sm text-ink-muted">
       {items.map((it) => (
         <li key={`${it.tone}-${it.label}`} className="inline-flex items-center gap-1.5">
           <Swatch tone={it.tone} overlay={it.overlay} />

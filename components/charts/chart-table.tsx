@@ -49,7 +49,7 @@ function ChartTableInner(p: ChartTableProps) {
     <div className={p.inset === false ? 'px-3' : 'pl-10 pr-3'}>
       <button
         type="button"
-        className="text-[11px] text-accent underline-offset-2 hover:underline"
+        className="text-sm text-accent underline-offset-2 hover:underline"
         aria-expanded={shown}
         aria-controls={id}
         onClick={() => setShown((v) => !v)}
@@ -64,7 +64,7 @@ function ChartTableInner(p: ChartTableProps) {
         role={shown ? 'region' : undefined}
         aria-label={shown ? p.caption : undefined}
       >
-        <table className="w-auto min-w-[16rem] border-collapse text-right text-[11px] tabular-nums text-ink" data-chart-table>
+        <table className="w-auto min-w-[16rem] border-collapse text-right text-sm tabular-nums text-ink" data-chart-table>
           <caption className="sr-only">{p.caption}</caption>
           <thead className="sticky top-0 bg-surface-sunken text-ink-muted">
             <tr>

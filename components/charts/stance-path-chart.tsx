@@ -103,14 +103,14 @@ export function StancePathChart(p: StancePathChartProps) {
   return (
     <figure className="m-0" data-chart={id}>
       <figcaption className="flex flex-wrap items-baseline justify-between gap-x-3 px-3">
-        <span id={`${id}-title`} className="text-xs font-semibold text-ink">
+        <span id={`${id}-title`} className="text-sm font-semibold text-ink">
           COP path over the stance
         </span>
-        <span className="text-[11px] text-ink-muted">
+        <span className="text-sm text-ink-muted">
           {frames && fi != null ? `sensor forces at ${frameEvent ? `${frameEvent}, ` : ''}${formatSeconds(frameTime - zero)} s` : 'toward target →'}
         </span>
       </figcaption>
-      <svg width="100%" viewBox={`0 0 ${p.width} ${height}`} role="img" aria-labelledby={`${id}-title`} aria-describedby={`${id}-desc`} className="block" style={{ fontSize: 10.5 }}>
+      <svg width="100%" viewBox={`0 0 ${p.width} ${height}`} role="img" aria-labelledby={`${id}-title`} aria-describedby={`${id}-desc`} className="block" style={{ fontSize: 14 }}>
         <desc id={`${id}-desc`}>
           Path of the combined centre of pressure from the lead and trail insoles, seen from above with the target to the right and the
           toes up. Sensor dots grow with their force.
@@ -156,7 +156,7 @@ export function StancePathChart(p: StancePathChartProps) {
             {labels[k] && (
               <>
                 <line x1={x(e.x)} y1={y(e.y)} x2={labels[k]!.anchorX} y2={labels[k]!.anchorY} stroke={CHART_COLOURS.inkFaint} strokeWidth={0.75} />
-                <text x={labels[k]!.x} y={labels[k]!.y} textAnchor={labels[k]!.anchor} fill={CHART_COLOURS.ink} style={{ fontSize: 9.5 }} paintOrder="stroke" stroke={CHART_COLOURS.surface} strokeWidth={3}>
+                <text x={labels[k]!.x} y={labels[k]!.y} textAnchor={labels[k]!.anchor} fill={CHART_COLOURS.ink} style={{ fontSize: 14 }} paintOrder="stroke" stroke={CHART_COLOURS.surface} strokeWidth={3}>
                   {e.name}
                 </text>
               </>
@@ -169,7 +169,7 @@ export function StancePathChart(p: StancePathChartProps) {
       </svg>
       {p.table !== false && (
         <ChartTable
-          caption="COP path in the stance frame, mm"
+          caption="Pressure path between the feet (COP, from the middle of the stance), mm"
           time={p.series.time}
           columns={[
             { label: 'COP x mm', values: p.series.copX },

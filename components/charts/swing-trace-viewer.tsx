@@ -21,6 +21,11 @@ export type ZoomLevel = 'trace' | 'window' | 'address-finish';
 
 export interface SwingTraceViewerProps {
   series: TraceSeries;
+  /**
+   * the whole recording, coarsened for display (min/max per bucket): drawn at the "Whole recording" zoom, where
+   * markers are read-only (too coarse to move an event on); without it that zoom shows the whole stored series
+   */
+  wholeSeries?: TraceSeries | null;
   /** the swing's window on the recording's time axis; events must stay inside it */
   window: TimeWindow;
   events: SwingEvents;
@@ -54,7 +59,7 @@ export interface SwingTraceViewerProps {
 const ZOOMS: { id: ZoomLevel; label: string }[] = [
   { id: 'address-finish', label: 'Address to finish' },
   { id: 'window', label: 'Swing window' },
-  { id: 'trace', label: 'Whole trace' },
+  { id: 'trace', label: 'Whole recording' },
 ];
 
 /** Half a second either side of address and finish, inside the trace (common practice for a readable swing view). */
@@ -90,10 +95,14 @@ function useWidth(initial: number) {
 }
 
 export function SwingTraceViewer(p: SwingTraceViewerProps) {
-  const { series, window: win } = p;
+  const { series: swingSeries, window: win } = p;
+  if (swingSeries.time.length < 2) throw new RangeError('SwingTraceViewer needs a series with at least two samples');
+  const [zoom, setZoom] = useState<ZoomLevel>(p.initialZoom ?? 'address-finish');
+  const wholeView = zoom === 'trace' && !!p.wholeSeries && p.wholeSeries.time.length >= 2;
+  // the charts draw the whole recording at that zoom; the COP path and the values stay on the swing's full-rate series
+  const series = wholeView ? p.wholeSeries! : swingSeries;
   const time = series.time;
-  if (time.length < 2) throw new RangeError('SwingTraceViewer needs a series with at least two samples');
-  const editable = !p.readOnly && !!p.onEventsChange;
+  const editable = !p.readOnly && !!p.onEventsChange && !wholeView;
   const prefix = p.idPrefix ?? 'swing';
   const zero = p.timeZero ?? win.startS;
 
@@ -108,22 +117,23 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
   const [dragging, setDragging] = useState<EventName | null>(null);
   const events = draft ?? history.present;
 
-  const [zoom, setZoom] = useState<ZoomLevel>(p.initialZoom ?? 'address-finish');
   // the domain follows the committed events, not the draft, so the axis stays still while a marker moves
   const domain = useMemo(() => zoomDomain(zoom, time, win, history.present), [zoom, time, win, history.present]);
   const [lo, hi] = useMemo(() => visibleRange(time, domain[0], domain[1]), [time, domain]);
 
-  const [cursorIndex, setCursorIndex] = useState(() => nearestIndex(time, p.initialCursorTime ?? p.events.top));
-  const cursor = Math.min(hi, Math.max(lo, cursorIndex));
+  // the cursor is a time, so it stays put when the zoom swaps the swing's series for the whole recording's
+  const [cursorAt, setCursorAt] = useState(() => p.initialCursorTime ?? p.events.top);
+  const cursor = Math.min(hi, Math.max(lo, nearestIndex(time, cursorAt)));
   const cursorTime = time[cursor];
   const onCursorChange = p.onCursorChange;
   const setCursor = useCallback(
     (i: number) => {
-      setCursorIndex(i);
+      setCursorAt(time[i]);
       onCursorChange?.(time[i]);
     },
     [time, onCursorChange],
   );
+  const swingDomain = useMemo(() => (wholeView ? zoomDomain('window', swingSeries.time, win, history.present) : domain), [wholeView, swingSeries.time, win, history.present, domain]);
 
   const [chartsRef, width] = useWidth(p.initialWidth ?? 820);
 
@@ -258,7 +268,7 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
           <HeelShareChart {...common} />
           <CopSpeedChart {...common} />
           <div className="flex items-center gap-2 pl-10 pr-3 pt-1">
-            <label htmlFor={`${prefix}-scrubber`} className="text-[11px] text-ink-muted">
+            <label htmlFor={`${prefix}-scrubber`} className="text-sm text-ink-muted">
               Cursor
             </label>
             <input
@@ -277,8 +287,8 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
         </div>
         <div className="min-w-0 space-y-2">
           <StancePathChart
-            series={series}
-            domain={domain}
+            series={swingSeries}
+            domain={swingDomain}
             layout={p.layout}
             handedness={p.handedness}
             stanceWidthMm={p.stanceWidthMm}
@@ -290,11 +300,12 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
             timeZero={zero}
             idPrefix={prefix}
           />
-          <ValuesPanel series={series} events={events} cursorTime={cursorTime} corrected={corrected} timeZero={zero} />
-          <p id={`${prefix}-keys`} className="text-[11px] leading-snug text-ink-faint">
+          <ValuesPanel series={swingSeries} events={events} cursorTime={cursorTime} corrected={corrected} timeZero={zero} />
+          <p id={`${prefix}-keys`} className="text-sm leading-snug text-ink-faint">
             Times in s from address (address = 0 s). ← → one sample · Shift+← → or [ ] event to event · Home / End ends of view
             {editable ? ' · drag a marker (or focus it and press ← →) to move an event · Ctrl+Z undoes' : ''}
             {editable ? ' · * moved by hand' : ''}
+            {wholeView && !p.readOnly && p.onEventsChange ? ' · zoom in to move a marker' : ''}
           </p>
         </div>
       </div>

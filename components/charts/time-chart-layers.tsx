@@ -4,13 +4,13 @@ import { memo } from 'react';
 import { EVENT_NAMES } from '@/lib/signal/types';
 import { formatSeconds } from './format';
 import { minMaxDownsample, sliceRange, visibleRange } from './lib/downsample';
-import { labelRows, textWidth } from './lib/label-layout';
+import { placeLabels, textWidth } from './lib/label-layout';
 import { valueAt } from './lib/nearest';
 import { BAND_FILL_OPACITY, CHART_COLOURS, OVERLAY_STYLE, PHASE_FILLS, TONE_STYLE } from './lib/palette';
 import { bandPath, linePath } from './lib/paths';
 import { phaseLabel, phaseSpans } from './lib/phase-bands';
 import type { NumArray } from './lib/types';
-import { chartGeometry, FONT_PX, LABEL_ROW_PX, MARGIN } from './time-chart-geometry';
+import { chartGeometry, FONT_PX, LABEL_ROW_PX, LABEL_ROWS, MARGIN } from './time-chart-geometry';
 import type { TimeSeriesChartProps } from './time-series-chart-props';
 
 export type LayerProps = Omit<TimeSeriesChartProps, 'cursorTime' | 'onCursor' | 'onEventDragStart' | 'onEventDrag' | 'onEventDragEnd' | 'onEventNudge' | 'title' | 'description'>;
@@ -45,7 +45,11 @@ function ChartLayersInner(p: LayerProps) {
         .map((n) => ({ name: n, t: events[n], px: x(events[n]), corrected: !!p.corrected?.[n] }))
     : [];
   const labelText = (m: (typeof markers)[number]) => (m.corrected ? `${m.name}*` : m.name);
-  const rows = p.showEventLabels ? labelRows(markers.map((m) => ({ x: m.px, width: textWidth(labelText(m), FONT_PX) })), 4, 2) : [];
+  const places = p.showEventLabels ? placeLabels(markers.map((m) => ({ x: m.px, width: textWidth(labelText(m), FONT_PX) })), w, 4, LABEL_ROWS) : [];
+  // the last tick carries the unit ("2.5 s"); a label that would pass the right edge is anchored at its end
+  const lastTick = xTicks.length - 1;
+  const tickText = (k: number) => (k === lastTick ? `${xTicks[k].label} s` : xTicks[k].label);
+  const tickAnchor = (k: number) => (x(xTicks[k].t) + textWidth(tickText(k), FONT_PX) / 2 > w + MARGIN.right - 2 ? 'end' : 'middle');
 
   // Everything but the markers is drawing only: hidden from assistive technology, whose readers get the title, the
   // description, the table fallback and (in the viewer) the markers as sliders.
@@ -65,8 +69,8 @@ function ChartLayersInner(p: LayerProps) {
           return (
             <g key={s.name} data-phase={s.name}>
               <rect x={x0} y={0} width={x1 - x0} height={h} fill={PHASE_FILLS[k % 2]} />
-              {p.showPhaseLabels && textWidth(label, 10) < x1 - x0 - 6 && (
-                <text x={(x0 + x1) / 2} y={h - 4} textAnchor="middle" fill={CHART_COLOURS.inkMuted} style={{ fontSize: 10 }}>
+              {p.showPhaseLabels && textWidth(label, FONT_PX) < x1 - x0 - 6 && (
+                <text x={(x0 + x1) / 2} y={h - 4} textAnchor="middle" fill={CHART_COLOURS.inkMuted} style={{ fontSize: FONT_PX }}>
                   {label}
                 </text>
               )}
@@ -81,6 +85,10 @@ function ChartLayersInner(p: LayerProps) {
         <rect x={0} y={0} width={w} height={h} fill="none" />
       </g>
       <g data-layer="y-axis" aria-hidden="true" fill={CHART_COLOURS.inkMuted}>
+        {/* the unit on the axis itself, above its top tick, inside the left margin */}
+        <text x={-box.margin.left + 2} y={-4} textAnchor="start" data-y-unit>
+          {p.unit}
+        </text>
         {yTicks.map((v) => (
           <text key={`t${v}`} x={-6} y={y(v)} dy="0.32em" textAnchor="end">
             {v}
@@ -89,14 +97,11 @@ function ChartLayersInner(p: LayerProps) {
       </g>
       {p.showTimeAxis && (
         <g data-layer="time-axis" aria-hidden="true" fill={CHART_COLOURS.inkMuted}>
-          {xTicks.map((k) => (
-            <text key={`x${k.label}`} x={x(k.t)} y={h + 14} textAnchor="middle">
-              {k.label}
+          {xTicks.map((k, i) => (
+            <text key={`x${k.label}`} x={x(k.t)} y={h + 14} textAnchor={tickAnchor(i)} data-x-tick={k.t - zero}>
+              {tickText(i)}
             </text>
           ))}
-          <text x={w + 4} y={h + 14} textAnchor="start" fill={CHART_COLOURS.inkFaint}>
-            s
-          </text>
         </g>
       )}
       <g clipPath={`url(#${clipId})`} aria-hidden="true">
@@ -114,7 +119,7 @@ function ChartLayersInner(p: LayerProps) {
         {(p.guides ?? []).map((g) => (
           <g key={`g${g.value}`} data-guide={g.value}>
             <line x1={0} x2={w} y1={y(g.value)} y2={y(g.value)} stroke={CHART_COLOURS.inkFaint} strokeDasharray="2 3" />
-            <text x={w - 3} y={y(g.value) - 3} textAnchor="end" fill={CHART_COLOURS.inkMuted} style={{ fontSize: 9.5 }}>
+            <text x={w - 3} y={y(g.value) - 3} textAnchor="end" fill={CHART_COLOURS.inkMuted} style={{ fontSize: FONT_PX }}>
               {g.label}
             </text>
           </g>
@@ -145,7 +150,8 @@ function ChartLayersInner(p: LayerProps) {
           const first = p.lines.find((l) => !l.overlay);
           const emph = first && p.emphasisEvents?.includes(m.name) ? first : null;
           const ev = emph ? valueAt(emph.time ?? p.time, emph.values, m.t) : NaN;
-          const row = rows[k] ?? 0;
+          const row = places[k]?.row ?? 0;
+          const labelX = places[k]?.x ?? m.px;
           const labelY = -box.margin.top + MARGIN.top + LABEL_ROW_PX * (row + 1) - 3;
           const handle = dragHandle(markers, k);
           return (
@@ -173,7 +179,7 @@ function ChartLayersInner(p: LayerProps) {
                 strokeDasharray={m.corrected ? undefined : '3 2'}
               />
               {p.showEventLabels && (
-                <text x={m.px} y={labelY} textAnchor="middle" fill={CHART_COLOURS.ink} fontStyle={m.corrected ? 'italic' : undefined}>
+                <text x={labelX} y={labelY} textAnchor="middle" fill={CHART_COLOURS.ink} fontStyle={m.corrected ? 'italic' : undefined}>
                   {labelText(m)}
                 </text>
               )}

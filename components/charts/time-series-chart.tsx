@@ -59,7 +59,7 @@ export function TimeSeriesChart(p: TimeSeriesChartProps) {
   return (
     <figure className="m-0" data-chart={p.id}>
       <figcaption className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-0.5 pl-10 pr-3">
-        <span id={`${p.id}-title`} className="text-xs font-semibold text-ink">
+        <span id={`${p.id}-title`} className="text-sm font-semibold text-ink">
           {p.title}
           <span className="font-normal text-ink-muted">, {p.unit}</span>
         </span>

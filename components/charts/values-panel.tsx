@@ -47,9 +47,10 @@ export function ValuesPanel(p: ValuesPanelProps) {
   const zero = p.timeZero ?? 0;
   const cursor = p.cursorTime != null && Number.isFinite(p.cursorTime) ? p.cursorTime : null;
   return (
-    <div className={`overflow-x-auto ${p.className ?? ''}`}>
-      <table className="w-full border-collapse text-right text-[11px] leading-tight tabular-nums text-ink-muted" data-values-panel>
-        <caption className="pb-1 text-left text-[10px] text-ink-faint">Values at the cursor and at each event · time in s · COP in mm, speed in mm/s</caption>
+    // focusable: at 14 px on a tablet the table can scroll sideways, and a keyboard user must reach it (axe scrollable-region-focusable)
+    <div className={`overflow-x-auto focus-visible:outline-2 ${p.className ?? ''}`} tabIndex={0} role="region" aria-label="Values at the cursor and at each event">
+      <table className="w-full border-collapse text-right text-sm leading-tight tabular-nums text-ink-muted" data-values-panel>
+        <caption className="pb-1 text-left text-sm text-ink-faint">Values at the cursor and at each event · time in s · COP in mm, speed in mm/s</caption>
         <thead>
           <tr className="text-ink-faint">
             <th scope="col" className="py-0.5 pr-1 text-left align-bottom font-medium">
@@ -59,7 +60,7 @@ export function ValuesPanel(p: ValuesPanelProps) {
               time
             </th>
             {COLUMNS.map((c) => (
-              <th key={c.key} scope="col" title={c.title} className="px-1 py-0.5 align-bottom text-[10px] font-medium leading-tight">
+              <th key={c.key} scope="col" title={c.title} className="px-1 py-0.5 align-bottom text-sm font-medium leading-tight">
                 {c.label}
               </th>
             ))}

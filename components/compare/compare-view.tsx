@@ -53,10 +53,10 @@ export function CompareView({ athleteId, contexts, months }: { athleteId: number
   return (
     <div className="space-y-5" data-testid="compare-view">
       <div className="flex flex-wrap gap-4">
-        <label className="text-sm"><span className="block text-xs text-ink-muted">Set A (circles, solid)</span>
+        <label className="text-sm"><span className="block text-sm text-ink-muted">Set A (circles, solid)</span>
           <select aria-label="Set A" className={`${inputClass} w-auto`} value={a} onChange={(e) => setA(e.target.value)}>{options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}</select>
         </label>
-        <label className="text-sm"><span className="block text-xs text-ink-muted">Set B (triangles, dashed)</span>
+        <label className="text-sm"><span className="block text-sm text-ink-muted">Set B (triangles, dashed)</span>
           <select aria-label="Set B" className={`${inputClass} w-auto`} value={b} onChange={(e) => setB(e.target.value)}>{options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}</select>
         </label>
         <MetricPicker metrics={metrics} onChange={setMetrics} className="text-sm" listClassName="max-w-2xl" />
@@ -80,15 +80,15 @@ function CompareResult({ data }: { data: CompareResponse }) {
           {few.map((s) => `${s.label} has ${s.n} swing${s.n === 1 ? '' : 's'}`).join('; ')}: too few swings to say anything about a difference. Record more before reading these numbers.
         </p>
       )}
-      <p className="text-xs text-ink-muted">A = {data.a.label} (circles), B = {data.b.label} (triangles); the black bar is the set’s mean.</p>
+      <p className="text-sm text-ink-muted">A = {data.a.label} (circles), B = {data.b.label} (triangles); the black bar is the set’s mean.</p>
       <div className="grid gap-4 xl:grid-cols-2">
         {data.differences.map((d) => (
           <StripPlot key={d.metric} metric={d.metric} label={metricLabel(d.metric)} a={{ label: data.a.label, values: data.a.values[d.metric] ?? [] }} b={{ label: data.b.label, values: data.b.values[d.metric] ?? [] }} />
         ))}
       </div>
       <table className="w-full text-left text-sm" data-testid="compare-differences">
-        <thead className="text-xs text-ink-muted">
-          <tr><th className="py-1 font-medium">Metric</th><th className="py-1 text-right font-medium">Mean A</th><th className="py-1 text-right font-medium">Mean B</th><th className="py-1 text-right font-medium">B − A</th><th className="py-1 text-right font-medium">95 % interval (Welch)</th><th className="py-1 pl-3 font-medium">Note</th></tr>
+        <thead className="text-ink-muted">
+          <tr><th className="py-1 font-medium">Metric</th><th className="py-1 text-right font-medium">Average A</th><th className="py-1 text-right font-medium">Average B</th><th className="py-1 text-right font-medium">B − A</th><th className="py-1 text-right font-medium"><abbr title="Welch’s t interval, 95 % (unequal variances)" className="no-underline">Likely range of the change</abbr></th><th className="py-1 pl-3 font-medium">Note</th></tr>
         </thead>
         <tbody>
           {data.differences.map((d) => (
@@ -98,12 +98,16 @@ function CompareResult({ data }: { data: CompareResponse }) {
               <td className="py-1.5 text-right tabular-nums">{fmt(d.meanB)}</td>
               <td className="py-1.5 text-right tabular-nums">{fmt(d.diff)}</td>
               <td className="py-1.5 text-right tabular-nums">{d.ci95 ? `${fmt(d.ci95[0])} to ${fmt(d.ci95[1])}` : '—'}</td>
-              <td className="py-1.5 pl-3 text-xs text-ink-muted">{d.note ?? (d.ci95 && d.ci95[0] <= 0 && d.ci95[1] >= 0 ? 'the interval includes 0: no clear difference' : '')}</td>
+              <td className="py-1.5 pl-3 text-sm text-ink-muted">{d.note ?? (d.ci95 && d.ci95[0] <= 0 && d.ci95[1] >= 0 ? 'the interval includes 0: no clear difference' : '')}</td>
             </tr>
           ))}
         </tbody>
       </table>
-      <p className="text-xs text-ink-muted">Difference B − A with Welch’s t interval (unequal variances). Swings of one player are not fully independent, so read the interval as a guide.</p>
+      <p className="text-sm text-ink-muted">
+        How much B differs from A, and the range the true change most likely lies in (95 % of the time). When the range
+        holds 0, the two sets may not really differ. Swings of one player are not fully independent, so read it as a
+        guide. <span className="text-ink-faint">(Exact: difference of means with Welch’s t interval, unequal variances.)</span>
+      </p>
       {(curveOf(data.a) || curveOf(data.b)) && <MeanCurves a={curveOf(data.a)} b={curveOf(data.b)} />}
     </div>
   );

@@ -39,7 +39,7 @@ export function MeanCurves({ a, b }: { a: { label: string; axis: number[]; curve
           );
         })}
       </svg>
-      <figcaption className="flex gap-4 text-xs text-ink-muted">
+      <figcaption className="flex gap-4 text-sm text-ink-muted">
         {sets.map((s) => (
           <span key={s.label} className="inline-flex items-center gap-1">
             <svg width="24" height="8" aria-hidden><line x1="0" x2="24" y1="4" y2="4" stroke={s.colour} strokeWidth="2" strokeDasharray={s.dash} /></svg>

@@ -38,17 +38,17 @@ export function AssignForm({ drillId, drillName, athletes }: { drillId: number; 
   return (
     <div className="mt-3 flex flex-wrap items-end gap-2 border-t border-surface-line pt-3 text-sm">
       <label className="space-y-1">
-        <span className="block text-xs text-ink-muted">Assign to</span>
+        <span className="block text-sm text-ink-muted">Assign to</span>
         <select aria-label={`Assign ${drillName} to`} className={`${inputClass} w-auto`} value={athleteId} onChange={(e) => setAthleteId(Number(e.target.value))}>
           {athletes.map((a) => <option key={a.id} value={a.id}>{a.displayName}</option>)}
         </select>
       </label>
       <label className="space-y-1">
-        <span className="block text-xs text-ink-muted">Due</span>
+        <span className="block text-sm text-ink-muted">Due</span>
         <input type="date" aria-label={`Due date for ${drillName}`} className={`${inputClass} w-auto`} value={dueDate} onChange={(e) => setDueDate(e.target.value)} />
       </label>
       <Button type="button" variant="secondary" onClick={() => void assign()} disabled={busy}>Assign</Button>
-      {msg && <p role={msg.ok ? 'status' : 'alert'} className={`text-xs ${msg.ok ? 'text-ok' : 'text-danger'}`}>{msg.text}</p>}
+      {msg && <p role={msg.ok ? 'status' : 'alert'} className={`text-sm ${msg.ok ? 'text-ok' : 'text-danger'}`}>{msg.text}</p>}
     </div>
   );
 }

@@ -1,4 +1,6 @@
-// One drill as the coach and the student read it: steps, the checks it works on, and its own cautions.
+// One drill as the coach and the student read it: steps, the checks it works on, and what to watch for in this drill.
+// The general caution is the page's one compact line (CoachingCaution); the card carries only the drill's own words,
+// as plain text, so the yellow notice is not repeated in every card.
 import type { ReactNode } from 'react';
 import { type Drill } from '@/lib/contracts/drills';
 import { eventLabels, measureLabels } from '@/lib/contracts/targets';
@@ -12,11 +14,11 @@ export function DrillBody({ drill }: { drill: Partial<Drill> }) {
         </ol>
       )}
       {drill.addressesChecks && drill.addressesChecks.length > 0 && (
-        <p className="text-xs text-ink-muted">Works on: {drill.addressesChecks.map((c) => `${measureLabels[c.measure]} at ${eventLabels[c.event].toLowerCase()}`).join('; ')}</p>
+        <p className="text-sm text-ink-muted">Works on: {drill.addressesChecks.map((c) => `${measureLabels[c.measure]} at ${eventLabels[c.event].toLowerCase()}`).join('; ')}</p>
       )}
       {drill.cautions && (
-        <p role="note" className="rounded border border-notice-line bg-notice-soft px-2 py-1 text-xs text-notice" data-testid="drill-caution">
-          <span className="font-semibold">Caution: </span>{drill.cautions}
+        <p className="text-sm text-ink" data-testid="drill-caution">
+          <span className="font-semibold">Watch for: </span>{drill.cautions}
         </p>
       )}
     </div>

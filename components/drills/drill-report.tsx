@@ -21,7 +21,7 @@ export function DrillReport({ sessionId }: { sessionId: number }) {
         <div key={i}>
           <p className="text-sm font-medium text-ink">{a.drill.name}</p>
           <table className="mt-1 w-full text-left text-sm">
-            <thead className="text-xs text-ink-muted">
+            <thead className="text-sm text-ink-muted">
               <tr><th className="py-1 font-medium">Check</th><th className="py-1 text-right font-medium">Before (mean, n)</th><th className="py-1 text-right font-medium">This session</th><th className="py-1 text-right font-medium">Moved</th></tr>
             </thead>
             <tbody>
@@ -37,7 +37,7 @@ export function DrillReport({ sessionId }: { sessionId: number }) {
           </table>
         </div>
       ))}
-      <p className="text-xs text-ink-muted">Moved = this session’s mean minus the mean before the drill was given; a few swings move by chance, so look for a change that lasts.</p>
+      <p className="text-sm text-ink-muted">Moved = this session’s mean minus the mean before the drill was given; a few swings move by chance, so look for a change that lasts.</p>
     </div>
   );
 }

@@ -68,16 +68,16 @@ function PracticeDone({ assignment: a }: { assignment: Assignment }) {
           <Button type="button" variant="secondary" className="min-h-11" onClick={() => void save(false)} disabled={busy}>
             Not done yet (take back)
           </Button>
-          {err && <p role="alert" className="text-xs text-danger">{err}</p>}
+          {err && <p role="alert" className="text-sm text-danger">{err}</p>}
         </>
       ) : (
         <>
           <label className="block">
-            <span className="block text-xs text-ink-muted">Note for your coach (optional)</span>
+            <span className="block text-sm text-ink-muted">Note for your coach (optional)</span>
             <textarea aria-label="Note for your coach" rows={2} className={inputClass} value={note} onChange={(e) => setNote(e.target.value)} />
           </label>
           <Button type="button" onClick={() => void save()} disabled={busy}>Mark practice done</Button>
-          {err && <p role="alert" className="text-xs text-danger">{err}</p>}
+          {err && <p role="alert" className="text-sm text-danger">{err}</p>}
         </>
       )}
     </div>

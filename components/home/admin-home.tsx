@@ -15,7 +15,7 @@ export async function AdminHome({ viewer }: { viewer: Viewer }) {
       <div className="mb-6 grid gap-4 sm:grid-cols-4">
         {roleValues.map((role) => (
           <div key={role} className="rounded-lg border border-surface-line bg-surface p-4">
-            <p className="text-xs font-medium uppercase tracking-wide text-ink-muted">{rolePluralLabels[role]}</p>
+            <p className="text-sm font-medium uppercase tracking-wide text-ink-muted">{rolePluralLabels[role]}</p>
             <p className="mt-1 text-2xl font-semibold tabular-nums">{users.filter((u) => u.role === role && u.active).length}</p>
           </div>
         ))}

@@ -9,7 +9,7 @@ import { formatDate } from '@/components/ui/format';
 function Stat({ label, value }: { label: string; value: string | number }) {
   return (
     <div className="rounded-lg border border-surface-line bg-surface p-4">
-      <p className="text-xs font-medium uppercase tracking-wide text-ink-muted">{label}</p>
+      <p className="text-sm font-medium uppercase tracking-wide text-ink-muted">{label}</p>
       <p className="mt-1 text-2xl font-semibold tabular-nums text-ink">{value}</p>
     </div>
   );

@@ -63,14 +63,14 @@ export function TrendChart({ label, points, yDomain }: { label: string; points: 
 
 export function ContextKey() {
   return (
-    <p className="flex flex-wrap items-center gap-4 text-xs text-ink-muted">
+    <p className="flex flex-wrap items-center gap-4 text-sm text-ink-muted">
       {(['lesson', 'practice', 'on-course'] as const).map((c) => (
         <span key={c} className="inline-flex items-center gap-1">
           <svg width="14" height="14" aria-hidden><ContextMark context={c} x={7} y={7.5} /></svg>
           {initial[c]} = {c === 'on-course' ? 'on course' : c}
         </span>
       ))}
-      <span>whiskers: ± 1 SD of the session’s swings</span>
+      <span title="± 1 standard deviation (SD) of the session’s swings">whiskers: the typical spread of the session’s swings</span>
     </p>
   );
 }

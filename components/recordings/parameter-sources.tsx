@@ -27,7 +27,7 @@ export function ParameterSources({ sources }: { sources: Record<string, unknown>
   });
   if (rows.length === 0) return null;
   return (
-    <ul className="space-y-0.5 text-xs text-ink-muted" data-testid="parameter-sources">
+    <ul className="space-y-0.5 text-sm text-ink-muted" data-testid="parameter-sources">
       {rows.map(({ key, e, disagree }) => (
         <li key={key} data-disagree={disagree || undefined}>
           {LABEL[key]}: <span className="font-medium text-ink">{fmt(key, e.used)}</span> ({FROM[e.source]})

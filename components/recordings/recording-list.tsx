@@ -22,9 +22,9 @@ export function RecordingList({ recordings, onChanged }: { recordings: SessionRe
           <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-sm">
             <span className="font-medium text-ink">{r.filename}</span>
             <StatusBadge status={r.status} />
-            <span className="text-xs tabular-nums text-ink-muted">{formatBytes(r.byteSize)}</span>
-            {r.status === 'ready' && <span className="text-xs text-ink-muted">{r.swingCount === 1 ? '1 swing' : `${r.swingCount} swings`}</span>}
-            {r.algorithmVersion && <span className="text-xs text-ink-faint">{r.algorithmVersion}</span>}
+            <span className="text-sm tabular-nums text-ink-muted">{formatBytes(r.byteSize)}</span>
+            {r.status === 'ready' && <span className="text-sm text-ink-muted">{r.swingCount === 1 ? '1 swing' : `${r.swingCount} swings`}</span>}
+            {r.algorithmVersion && <span className="text-sm text-ink-faint">{r.algorithmVersion}</span>}
             {onChanged && (
               <span className="ml-auto">
                 <RecordingDelete

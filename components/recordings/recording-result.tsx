@@ -34,7 +34,7 @@ export function RecordingResult({ recordingId }: { recordingId: number }) {
       {data.status === 'ready' && data.swings.length === 0 && <NoSwingsNote />}
       {data.status === 'ready' && data.swings.length > 0 && (
         <div className="overflow-x-auto">
-          <table className="w-full text-left text-xs tabular-nums" data-testid="found-swings">
+          <table className="w-full text-left text-sm tabular-nums" data-testid="found-swings">
             <thead className="text-ink-muted">
               <tr>
                 <th scope="col" className="py-1 pr-3 font-medium">Swing</th>

@@ -23,7 +23,7 @@ export function UploadItem({ item, onRemove }: { item: QueuedFile; onRemove?: ()
     <li className="space-y-2 py-3" data-testid="upload-item" data-filename={item.file.name} data-state={item.state}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <span className="font-medium text-ink">{item.file.name}</span>
-        <span className="flex items-center gap-3 text-xs tabular-nums text-ink-muted">
+        <span className="flex items-center gap-3 text-sm tabular-nums text-ink-muted">
           <span data-testid="upload-bytes">
             {item.state === 'pending' ? formatBytes(size) : `${formatBytes(item.sentBytes)} of ${formatBytes(size)} sent`}
           </span>
@@ -56,7 +56,7 @@ export function UploadItem({ item, onRemove }: { item: QueuedFile; onRemove?: ()
         </p>
       )}
       {item.duplicate && (
-        <p className="text-xs text-ink-muted" data-testid="upload-duplicate">
+        <p className="text-sm text-ink-muted" data-testid="upload-duplicate">
           This session already holds a file with exactly these bytes; showing the recording kept earlier instead of a copy.
         </p>
       )}

@@ -17,7 +17,7 @@ function readText(file: File | undefined, set: (value: { name: string; text: str
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
     <fieldset className="min-w-0 space-y-4">
-      <legend className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-muted">{title}</legend>
+      <legend className="mb-1 text-sm font-semibold uppercase tracking-wide text-ink-muted">{title}</legend>
       {children}
     </fieldset>
   );
@@ -94,7 +94,7 @@ export function UploadOptionsForm({
               className={fileInputClass}
               onChange={(e) => readText(e.target.files?.[0], (f) => set('layoutFile', f))}
             />
-            {value.layoutFile && <p className="text-xs text-ink-muted">Using {value.layoutFile.name}</p>}
+            {value.layoutFile && <p className="text-sm text-ink-muted">Using {value.layoutFile.name}</p>}
           </div>
         )}
 
@@ -120,7 +120,7 @@ export function UploadOptionsForm({
               className={fileInputClass}
               onChange={(e) => readText(e.target.files?.[0], (f) => set('profileFile', f))}
             />
-            {value.profileFile && <p className="text-xs text-ink-muted">Using {value.profileFile.name}</p>}
+            {value.profileFile && <p className="text-sm text-ink-muted">Using {value.profileFile.name}</p>}
             <Field id="saveProfileAs" label="Save this profile as (optional)" hint="Saved profiles are yours and can be picked on later uploads." error={errors.saveProfileAs}>
               <input id="saveProfileAs" className={inputClass} disabled={disabled} value={value.saveProfileAs} maxLength={80} onChange={(e) => set('saveProfileAs', e.target.value)} {...invalid('saveProfileAs')} />
             </Field>
@@ -139,7 +139,7 @@ export function UploadOptionsForm({
               </label>
             ))}
           </div>
-          {errors.handedness && <p className="text-xs font-medium text-danger">{errors.handedness}</p>}
+          {errors.handedness && <p className="text-sm font-medium text-danger">{errors.handedness}</p>}
         </div>
         <div className="grid gap-4 sm:grid-cols-2">
           <Field id="stanceWidthMm" label="Stance width (mm)" hint={`Leave empty to use the file's own value, else the player's profile${athlete ? ` (${athlete.stanceWidthMm} mm)` : ''}; ${STANCE_WIDTH_MIN_MM}-${STANCE_WIDTH_MAX_MM} mm.`} error={errors.stanceWidthMm}>

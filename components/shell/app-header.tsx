@@ -19,7 +19,7 @@ export function AppHeader({ viewer }: { viewer: Viewer }) {
         <div className="flex items-center gap-3 text-sm">
           <span className="text-right leading-tight">
             <span className="block font-medium text-ink" data-testid="viewer-name">{viewer.name}</span>
-            <span className="block text-xs text-ink-muted">{roleLabels[viewer.role]}</span>
+            <span className="block text-sm text-ink-muted">{roleLabels[viewer.role]}</span>
           </span>
           <Link href="/sign-out" className="rounded-md border border-surface-line px-3 py-1.5 font-medium text-ink hover:bg-surface-sunken">
             Sign out

@@ -5,6 +5,7 @@ import { useState, type FormEvent } from 'react';
 import type { SwingEvents } from '@/components/charts';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
+import { ConfirmButton, UndoLine } from '@/components/ui/confirm-button';
 import { inputClass } from '@/components/ui/field';
 import { PHASES } from '@/lib/signal/types';
 import { phaseLabels } from './labels';
@@ -38,8 +39,56 @@ function where(a: Annotation, timeZero: number): string {
   return a.phase ? phaseLabels[a.phase].name.toLowerCase() : 'whole swing';
 }
 
+function NoteEdit({ swingId, note, onDone, onChanged }: { swingId: number; note: Annotation; onDone: () => void; onChanged: () => void }) {
+  const [body, setBody] = useState(note.body);
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const fieldId = `note-edit-${note.id}`;
+  const save = async (e: FormEvent) => {
+    e.preventDefault();
+    const text = body.trim();
+    if (text.length === 0) return setError('Note: write something, or delete the note instead.');
+    if (text.length > 2000) return setError(`Note: at most 2000 characters (now ${text.length}).`);
+    setBusy(true);
+    setError(null);
+    try {
+      await updateAnnotation(swingId, note.id, { body: text });
+      onChanged();
+      onDone();
+    } catch (err) {
+      setError(errorText(err));
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <form onSubmit={save} className="mt-2 space-y-2" noValidate data-testid="annotation-edit">
+      <label htmlFor={fieldId} className="sr-only">
+        Note text
+      </label>
+      <textarea id={fieldId} rows={3} maxLength={2000} value={body} onChange={(e) => setBody(e.target.value)} className={inputClass} aria-invalid={error ? true : undefined} />
+      {error && (
+        <p role="alert" className="text-sm text-danger">
+          {error}
+        </p>
+      )}
+      <div className="flex gap-2">
+        <Button type="submit" disabled={busy}>
+          Save note
+        </Button>
+        <Button type="button" variant="secondary" disabled={busy} onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
 export function AnnotationList({ annotations, events, timeZero, canEdit, swingId, onChanged }: Omit<AnnotationsPanelProps, 'cursorTime'>) {
   const [error, setError] = useState<string | null>(null);
+  const [editing, setEditing] = useState<number | null>(null);
+  // a deleted note, kept here so Undo can write it again (same text, pin and visibility)
+  const [deleted, setDeleted] = useState<Annotation | null>(null);
   const sorted = sortAnnotations(annotations, events);
   const act = async (f: () => Promise<unknown>) => {
     setError(null);
@@ -50,30 +99,56 @@ export function AnnotationList({ annotations, events, timeZero, canEdit, swingId
       setError(errorText(e));
     }
   };
-  if (sorted.length === 0) return <p className="text-sm text-ink-muted">No notes on this swing yet.</p>;
+  const undo = deleted && (
+    <UndoLine
+      message={`Note deleted: “${deleted.body.length > 60 ? `${deleted.body.slice(0, 60)}…` : deleted.body}”`}
+      onUndo={async () => {
+        await createAnnotation(swingId, { body: deleted.body, visibility: deleted.visibility, ...(deleted.timeS !== null ? { timeS: deleted.timeS } : deleted.phase ? { phase: deleted.phase } : {}) });
+        onChanged();
+      }}
+      onDismiss={() => setDeleted(null)}
+    />
+  );
+  if (sorted.length === 0) return <>{undo}<p className="text-sm text-ink-muted">No notes on this swing yet.</p></>;
   return (
     <>
+      {undo}
       <ol className="space-y-2" data-testid="annotation-list">
         {sorted.map((a) => (
           <li key={a.id} className="rounded-md border border-surface-line p-3" data-testid="annotation" data-visibility={a.visibility}>
-            <div className="flex flex-wrap items-center gap-2 text-xs text-ink-muted">
+            <div className="flex flex-wrap items-center gap-2 text-sm text-ink-muted">
               <span className="font-semibold tabular-nums text-ink">{where(a, timeZero)}</span>
               <span>· {a.authorName}</span>
               {canEdit && <Badge tone={a.visibility === 'shared' ? 'ok' : 'neutral'}>{a.visibility === 'shared' ? 'Shared with the student' : 'Coach only'}</Badge>}
-              {canEdit && (
-                <span className="ml-auto flex gap-2">
-                  <button type="button" className="underline hover:text-accent" onClick={() => act(() => updateAnnotation(swingId, a.id, { visibility: a.visibility === 'shared' ? 'coach' : 'shared' }))}>
-                    {a.visibility === 'shared' ? 'Make coach-only' : 'Share'}
-                  </button>
-                  <button type="button" className="underline hover:text-danger" onClick={() => act(() => deleteAnnotation(swingId, a.id))}>
-                    Delete
-                  </button>
-                </span>
-              )}
             </div>
-            <p className="mt-1 whitespace-pre-wrap text-sm text-ink" data-testid="annotation-body">
-              {a.body}
-            </p>
+            {editing === a.id ? (
+              <NoteEdit swingId={swingId} note={a} onDone={() => setEditing(null)} onChanged={onChanged} />
+            ) : (
+              <p className="mt-1 whitespace-pre-wrap text-sm text-ink" data-testid="annotation-body">
+                {a.body}
+              </p>
+            )}
+            {canEdit && editing !== a.id && (
+              <div className="mt-2 flex flex-wrap gap-2">
+                <Button type="button" variant="secondary" aria-label={`Edit the note ${where(a, timeZero)}`} onClick={() => setEditing(a.id)}>
+                  Edit
+                </Button>
+                <Button type="button" variant="secondary" onClick={() => act(() => updateAnnotation(swingId, a.id, { visibility: a.visibility === 'shared' ? 'coach' : 'shared' }))}>
+                  {a.visibility === 'shared' ? 'Make coach-only' : 'Share'}
+                </Button>
+                <ConfirmButton
+                  label="Delete…"
+                  accessibleLabel={`Delete the note ${where(a, timeZero)}`}
+                  question="Delete this note? You can undo it right after."
+                  confirmLabel="Delete note"
+                  onConfirm={async () => {
+                    await deleteAnnotation(swingId, a.id);
+                    setDeleted(a);
+                    onChanged();
+                  }}
+                />
+              </div>
+            )}
           </li>
         ))}
       </ol>

@@ -18,7 +18,8 @@ export interface EventEditBarProps {
   onReset: () => void;
 }
 
-const small = 'rounded-md px-2.5 py-1 text-xs font-medium disabled:cursor-not-allowed';
+// 44 px high: a finger-sized target on a tablet in the bay (WCAG 2.5.5)
+const small = 'min-h-11 rounded-md px-3 py-1 text-sm font-medium disabled:cursor-not-allowed';
 const primary = `${small} bg-accent text-white hover:bg-accent-strong disabled:bg-surface-sunken disabled:text-ink-faint`;
 const secondary = `${small} border border-surface-line bg-surface text-ink hover:bg-surface-sunken disabled:text-ink-faint`;
 
@@ -32,17 +33,17 @@ export function EventEditBar({ swing, moved, timeZero, busy, error, onSave, onDi
         <span data-testid="corrected-mark" className="inline-flex flex-wrap items-center gap-1.5">
           <Badge tone="band">Corrected by hand</Badge>
           {manual.map((e) => (
-            <span key={e.name} className="text-xs text-ink-muted" data-corrected-event={e.name}>
+            <span key={e.name} className="text-sm text-ink-muted" data-corrected-event={e.name}>
               {eventLabels[e.name]} {e.autoTimeS !== null ? `${rel(e.autoTimeS)} → ` : ''}
               {rel(e.timeS)}
             </span>
           ))}
         </span>
       ) : (
-        <span className="text-xs text-ink-muted">Events as detected</span>
+        <span className="text-sm text-ink-muted">Events as detected</span>
       )}
       {movedNames.length > 0 && (
-        <span className="text-xs text-ink" data-testid="unsaved-moves">
+        <span className="text-sm text-ink" data-testid="unsaved-moves">
           Unsaved: {movedNames.map((n) => `${eventLabels[n]} → ${rel(moved[n]!)}`).join(', ')}
         </span>
       )}

@@ -12,7 +12,7 @@ export function EventTable({ events }: { events: SwingDetail['events'] }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm tabular-nums" data-testid="event-table">
-        <thead className="border-b border-surface-line text-xs text-ink-muted">
+        <thead className="border-b border-surface-line text-sm text-ink-muted">
           <tr>
             <th scope="col" className={th}>Event</th>
             <th scope="col" className={th}>From address (s)</th>

@@ -68,7 +68,7 @@ export function LabelsForm({ swingId, labels, onSaved }: { swingId: number; labe
             </label>
           ))}
         </div>
-        {errors.rating && <p className="text-xs text-danger" role="alert">{errors.rating.message}</p>}
+        {errors.rating && <p className="text-sm text-danger" role="alert">{errors.rating.message}</p>}
       </fieldset>
       <label className="flex items-start gap-2 text-sm text-ink">
         <input type="checkbox" className="mt-0.5" {...register('notASwing')} />
@@ -85,7 +85,7 @@ export function LabelsForm({ swingId, labels, onSaved }: { swingId: number; labe
         <Button type="submit" disabled={isSubmitting || !isDirty}>
           {isSubmitting ? 'Saving…' : 'Save labels'}
         </Button>
-        {savedAt && !isDirty && <span className="text-xs text-ink-muted" data-testid="labels-saved">Saved at {savedAt}</span>}
+        {savedAt && !isDirty && <span className="text-sm text-ink-muted" data-testid="labels-saved">Saved at {savedAt}</span>}
       </div>
     </form>
   );

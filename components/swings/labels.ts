@@ -1,17 +1,24 @@
 // Event and phase names on screen derive from lib/signal/types.ts (EVENT_NAMES, PHASES) in the swings contract.
 export { eventLabels, phaseLabels } from '@/lib/contracts/swings';
 
-// Names of the processing parameters as lib/signal/analyze.ts records them, with their units.
+// Names of the processing parameters as lib/signal/analyze.ts records them, with their units: coach words first;
+// the exact technical term (parameterTerms) goes in the tooltip.
 export const parameterLabels: Record<string, string> = {
   handedness: 'Handedness',
   stance_width_mm: 'Stance width (mm)',
-  cutoff_hz: 'Filter cutoff (Hz)',
-  filter_order: 'Filter order (zero-lag, applied forward and backward)',
-  derivative_window: 'Derivative window (samples)',
-  derivative_poly_order: 'Derivative polynomial order',
+  cutoff_hz: 'Smoothing: fastest change kept (Hz)',
+  filter_order: 'Smoothing strength',
+  derivative_window: 'Speed estimate: samples used',
+  derivative_poly_order: 'Speed estimate: curve fitted',
   max_gap_s: 'Longest gap filled (s)',
   sample_rate_hz: 'Sample rate (Hz)',
   layout: 'Sensor layout',
+};
+export const parameterTerms: Record<string, string> = {
+  cutoff_hz: 'low-pass filter cutoff frequency (Hz)',
+  filter_order: 'Butterworth filter order (zero-lag, applied forward and backward)',
+  derivative_window: 'derivative window (Savitzky–Golay, samples)',
+  derivative_poly_order: 'derivative polynomial order (Savitzky–Golay)',
 };
 
 // Swing labels (trade terms for clubs and ball outcomes).

@@ -23,7 +23,7 @@ export function PhaseExplainer({ phases }: { phases: SwingDetail['phases'] }) {
           <div key={name} className="rounded-md border border-surface-line p-3">
             <dt className="text-sm font-semibold text-ink">
               {phaseLabels[name].name}{' '}
-              <span className="text-xs font-normal text-ink-muted">
+              <span className="text-sm font-normal text-ink-muted">
                 {phaseLabels[name].span}
                 {duration != null ? ` · ${duration.toFixed(2)} s in this swing` : ''}
               </span>

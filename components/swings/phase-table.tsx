@@ -10,7 +10,7 @@ export function PhaseTable({ phases }: { phases: SwingDetail['phases'] }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm tabular-nums" data-testid="phase-table">
-        <thead className="border-b border-surface-line text-xs text-ink-muted">
+        <thead className="border-b border-surface-line text-sm text-ink-muted">
           <tr>
             <th scope="col" className={th}>Phase</th>
             <th scope="col" className={th}>Duration (s)</th>
@@ -23,7 +23,7 @@ export function PhaseTable({ phases }: { phases: SwingDetail['phases'] }) {
           {phases.map((p) => (
             <tr key={p.name} data-phase={p.name}>
               <th scope="row" className={`${td} font-medium`}>
-                {phaseLabels[p.name].name} <span className="text-xs font-normal text-ink-muted">{phaseLabels[p.name].span}</span>
+                {phaseLabels[p.name].name} <span className="text-sm font-normal text-ink-muted">{phaseLabels[p.name].span}</span>
               </th>
               <td className={td}>{formatNumber(p.durationS, 3)}</td>
               <td className={td}>{formatNumber(p.copPathMm, 1)}</td>

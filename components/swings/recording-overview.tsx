@@ -42,10 +42,10 @@ export function RecordingOverview({ overview, siblings, window: win, onJump, rec
     else onJump(Math.min(win.endS, Math.max(win.startS, t)));
   };
 
-  const link = 'rounded-md border border-surface-line px-2.5 py-1 text-xs text-ink hover:bg-surface-sunken';
+  const link = 'rounded-md border border-surface-line px-2.5 py-1 text-sm text-ink hover:bg-surface-sunken';
   return (
     <section aria-label="Recording overview" className="rounded-lg border border-surface-line bg-surface px-3 py-2" data-testid="recording-overview">
-      <div className="mb-1 flex items-center gap-3 text-xs text-ink-muted">
+      <div className="mb-1 flex items-center gap-3 text-sm text-ink-muted">
         <span className="font-medium text-ink">Whole recording</span>
         <span>lead % over {(t1 - t0).toFixed(0)} s · this swing shaded · click before or after it for the neighbouring swing</span>
         <span className="ml-auto flex gap-2">
@@ -104,7 +104,7 @@ function CandidateList({ candidates, recordingId, canEdit }: { candidates: Candi
     }
   };
   return (
-    <details className="mt-1 text-xs text-ink-muted" data-testid="candidate-list">
+    <details className="mt-1 text-sm text-ink-muted" data-testid="candidate-list">
       <summary className="cursor-pointer">Moves not counted as swings ({candidates.length}), dashed above</summary>
       <ul className="mt-1 space-y-1">
         {candidates.map((c) => (
@@ -112,7 +112,7 @@ function CandidateList({ candidates, recordingId, canEdit }: { candidates: Candi
             <span className="tabular-nums">{c.timeS.toFixed(2)} s</span>
             <span>{c.reasonText}</span>
             {canEdit && recordingId !== undefined && (
-              <button type="button" className="rounded-md border border-surface-line px-2 py-0.5 text-ink hover:bg-surface-sunken disabled:opacity-50" disabled={state.busy !== null} onClick={() => promote(c.timeS)} data-testid="promote-candidate">
+              <button type="button" className="min-h-11 rounded-md border border-surface-line px-3 py-1 text-ink hover:bg-surface-sunken disabled:opacity-50" disabled={state.busy !== null} onClick={() => promote(c.timeS)} data-testid="promote-candidate">
                 Count this as a swing
               </button>
             )}

@@ -6,7 +6,7 @@ import type { SwingDetail } from '@/lib/contracts/swings';
 function Fact({ label, value, testId }: { label: string; value: string; testId?: string }) {
   return (
     <div className="flex items-baseline gap-2">
-      <dt className="text-xs font-medium uppercase tracking-wide text-ink-muted">{label}</dt>
+      <dt className="text-sm font-medium uppercase tracking-wide text-ink-muted">{label}</dt>
       <dd className="text-base font-semibold tabular-nums text-ink" data-testid={testId}>
         {value}
       </dd>

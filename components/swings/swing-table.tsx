@@ -26,7 +26,7 @@ const bound = (text: string): number | undefined => {
 function RangeFilter({ label, id, value, onChange }: { label: string; id: string; value: [string, string]; onChange: (v: [string, string]) => void }) {
   return (
     <fieldset className="space-y-1">
-      <legend className="text-xs font-medium text-ink-muted">{label}</legend>
+      <legend className="text-sm font-medium text-ink-muted">{label}</legend>
       <div className="flex items-center gap-1.5">
         <input aria-label={`${label}, at least`} id={`${id}-min`} inputMode="decimal" placeholder="min" className={`${small} w-20`} value={value[0]} onChange={(e) => onChange([e.target.value, value[1]])} />
         <span className="text-ink-faint">–</span>
@@ -75,7 +75,7 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
     <div className="space-y-4">
       <div className="flex flex-wrap items-end gap-4" data-testid="swing-filters">
         <label className="space-y-1">
-          <span className="block text-xs font-medium text-ink-muted">Recording</span>
+          <span className="block text-sm font-medium text-ink-muted">Recording</span>
           <select className={`${small} w-56`} value={recording} onChange={(e) => setRecording(e.target.value)} data-testid="filter-recording">
             <option value="">All recordings</option>
             {recordings.map((r) => (
@@ -86,11 +86,11 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
           </select>
         </label>
         <label className="space-y-1">
-          <span className="block text-xs font-medium text-ink-muted">Club</span>
+          <span className="block text-sm font-medium text-ink-muted">Club</span>
           <input className={`${small} w-32`} value={club} onChange={(e) => setClub(e.target.value)} placeholder="any" />
         </label>
         <label className="space-y-1">
-          <span className="block text-xs font-medium text-ink-muted">Label</span>
+          <span className="block text-sm font-medium text-ink-muted">Label</span>
           <input className={`${small} w-32`} value={label} onChange={(e) => setLabel(e.target.value)} placeholder="any" />
         </label>
         <RangeFilter label="Lead % at impact" id="filter-lead" value={lead} onChange={setLead} />
@@ -100,12 +100,12 @@ export function SwingTable({ rows, recordings }: { rows: SwingRow[]; recordings:
           Hide partial swings
         </label>
       </div>
-      <p className="text-xs text-ink-muted" data-testid="swing-count-shown">
+      <p className="text-sm text-ink-muted" data-testid="swing-count-shown">
         {shown.length === rows.length ? `${rows.length} swings` : `${shown.length} of ${rows.length} swings`}
       </p>
       <div className="overflow-x-auto">
         <table className="w-full text-left text-sm tabular-nums" data-testid="swing-table">
-          <thead className="border-b border-surface-line text-xs text-ink-muted">
+          <thead className="border-b border-surface-line text-sm text-ink-muted">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => {

@@ -25,6 +25,24 @@ export function traceSeries(s: SwingView['series']): TraceSeries {
   };
 }
 
+/**
+ * The whole recording for the viewer's "Whole recording" zoom, from the overview (min/max pairs per display bucket).
+ * The COP's side-to-side position is not in it (the COP path stays on the swing's own series): NaN, never drawn.
+ * null when the overview has fewer than two points.
+ */
+export function wholeTraceSeries(o: SwingView['overview']): TraceSeries | null {
+  if (o.time.length < 2) return null;
+  return {
+    time: Float64Array.from(o.time),
+    leadPct: toArray(o.leadPct),
+    leadHeelPct: toArray(o.leadHeelPct),
+    trailHeelPct: toArray(o.trailHeelPct),
+    copX: toArray(o.copX),
+    copY: new Float64Array(o.time.length).fill(NaN),
+    copSpeed: toArray(o.copSpeed),
+  };
+}
+
 /** The events as the viewer holds them; null when the swing lacks one (the viewer needs all five). */
 export function eventRecord(events: SwingDetail['events'], which: 'timeS' | 'autoTimeS' = 'timeS'): SwingEvents | null {
   const out: Partial<SwingEvents> = {};

@@ -21,7 +21,7 @@ import { CorrectionLog } from './correction-log';
 import { errorText, patchSwing, swingUrl } from './swing-api';
 import { swingViewResponseSchema, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { SwingFacts } from './swing-facts';
-import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries } from './swing-view-model';
+import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries, wholeTraceSeries } from './swing-view-model';
 import { BandPicker } from '@/components/bands/band-picker';
 import { useBandOverlay } from '@/components/bands/band-overlay';
 import { ScorePanel } from '@/components/targets/score-panel';
@@ -62,9 +62,10 @@ function Tables({ swing }: { swing: SwingDetail }) {
     <>
       <Card title="Phases">
         <MemoPhaseTable phases={swing.phases} />
-        <p className="mt-3 text-xs text-ink-muted">
-          COP = centre of pressure of both feet in the stance frame; path is its travelled length, speed its fastest movement. Lead % is the share of the
-          total load on the lead (target-side) foot. Tempo = (top − address) / (impact − top).
+        <p className="mt-3 text-sm text-ink-muted">
+          COP = the centre of pressure of both feet, measured from the middle of the stance: x toward the target, y toward
+          the toes (<abbr title="stance frame: origin midway between the feet">stance frame</abbr>); path is how far it travels, speed its fastest
+          movement. Lead % is the share of the total load on the lead (target-side) foot. Tempo = (top − address) / (impact − top).
         </p>
       </Card>
       <Card title="Values at the events">
@@ -76,6 +77,7 @@ function Tables({ swing }: { swing: SwingDetail }) {
 
 function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: SwingView) => void; refresh: () => void }) {
   const series = useMemo(() => traceSeries(swing.series), [swing.series]);
+  const whole = useMemo(() => wholeTraceSeries(swing.overview), [swing.overview]);
   const saved = useMemo(() => eventRecord(swing.events), [swing.events]);
   const auto = useMemo(() => eventRecord(swing.events, 'autoTimeS'), [swing.events]);
   const frames = useMemo(() => sensorFrames(swing.sensorFrames), [swing.sensorFrames]);
@@ -170,6 +172,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
         <SwingTraceViewer
           key={viewerKey}
           series={series}
+          wholeSeries={whole}
           window={win}
           events={saved}
           autoEvents={auto ?? undefined}

@@ -42,7 +42,7 @@ function TargetChecks({ target }: { target: ScoreResponse['target'] }) {
         {target.name ? <> against “{target.name}”</> : null}
       </p>
       <table className="w-full text-left text-sm">
-        <thead className="text-xs text-ink-muted">
+        <thead className="text-sm text-ink-muted">
           <tr>
             <th className="py-1 pr-2 font-medium">Event</th>
             <th className="py-1 pr-2 font-medium">Measure</th>
@@ -83,7 +83,7 @@ function TargetChecks({ target }: { target: ScoreResponse['target'] }) {
           )}
         </tbody>
       </table>
-      <p className="mt-2 text-xs text-ink-muted">Targets are a starting point (common practice); more than one pressure style scores well, so read a miss as a question, not a fault.</p>
+      <p className="mt-2 text-sm text-ink-muted">Targets are a starting point (common practice); more than one pressure style scores well, so read a miss as a question, not a fault.</p>
     </div>
   );
 }
@@ -93,15 +93,15 @@ function BandScore({ band }: { band: ScoreResponse['band'] }) {
   return (
     <dl className="grid grid-cols-3 gap-3 text-sm" data-testid="band-score">
       <div>
-        <dt className="text-xs text-ink-muted">Time inside band</dt>
+        <dt className="text-sm text-ink-muted">Time inside band</dt>
         <dd className="font-semibold tabular-nums" data-testid="band-inside">{fmt(band.insidePct)} %</dd>
       </div>
       <div>
-        <dt className="text-xs text-ink-muted">RMS difference (lead %)</dt>
+        <dt className="text-sm text-ink-muted">RMS difference (lead %)</dt>
         <dd className="font-semibold tabular-nums" data-testid="band-rms">{fmt(band.rms, 2)}</dd>
       </div>
       <div>
-        <dt className="text-xs text-ink-muted">CMC (curve similarity, 0–1)</dt>
+        <dt className="text-sm text-ink-muted">CMC (curve similarity, 0–1)</dt>
         <dd className="font-semibold tabular-nums" data-testid="band-cmc">{fmt(band.cmc, 3)}</dd>
       </div>
     </dl>

@@ -64,7 +64,7 @@ export function TargetForm({ target, athletes, onDone }: { target?: Target; athl
         </Field>
       </div>
       <table className="w-full text-sm">
-        <thead className="text-left text-xs text-ink-muted">
+        <thead className="text-left text-sm text-ink-muted">
           <tr><th className="font-medium">Event</th><th className="font-medium">Measure</th><th className="font-medium">Expected</th><th className="font-medium">± Tolerance</th><th /></tr>
         </thead>
         <tbody>
@@ -76,11 +76,11 @@ export function TargetForm({ target, athletes, onDone }: { target?: Target; athl
                 <td className="pr-2 py-1"><select aria-label={`Check ${i + 1} measure`} className={cell} {...register(`checks.${i}.measure`)}>{measures.map((x) => <option key={x} value={x}>{measureLabels[x]}</option>)}</select></td>
                 <td className="pr-2 py-1">
                   <input aria-label={`Check ${i + 1} expected`} type="number" step="any" className={cell} aria-invalid={e?.expected ? 'true' : 'false'} {...register(`checks.${i}.expected`, { valueAsNumber: true })} />
-                  {e?.expected && <p role="alert" className="text-xs text-danger">{e.expected.message}</p>}
+                  {e?.expected && <p role="alert" className="text-sm text-danger">{e.expected.message}</p>}
                 </td>
                 <td className="pr-2 py-1">
                   <input aria-label={`Check ${i + 1} tolerance`} type="number" step="any" className={cell} aria-invalid={e?.tolerance ? 'true' : 'false'} {...register(`checks.${i}.tolerance`, { valueAsNumber: true })} />
-                  {e?.tolerance && <p role="alert" className="text-xs text-danger">{e.tolerance.message}</p>}
+                  {e?.tolerance && <p role="alert" className="text-sm text-danger">{e.tolerance.message}</p>}
                 </td>
                 <td className="py-1"><Button type="button" variant="secondary" onClick={() => remove(i)} aria-label={`Remove check ${i + 1}`}>×</Button></td>
               </tr>
@@ -88,7 +88,7 @@ export function TargetForm({ target, athletes, onDone }: { target?: Target; athl
           })}
         </tbody>
       </table>
-      {errors.checks?.message && <p role="alert" className="text-xs text-danger">{errors.checks.message}</p>}
+      {errors.checks?.message && <p role="alert" className="text-sm text-danger">{errors.checks.message}</p>}
       <Button type="button" variant="secondary" onClick={() => append({ event: 'impact', measure: 'leadPct', expected: 50, tolerance: 10 })}>Add check</Button>
       <div className="flex flex-wrap items-end gap-3 text-sm">
         <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={withTempo} onChange={(e) => setWithTempo(e.target.checked)} /> Tempo range (backswing : downswing)</label>

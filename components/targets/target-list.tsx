@@ -49,9 +49,9 @@ function TargetCard({ target: t, player, onEdit }: { target: Target; player: str
         {t.commonPractice && <Badge tone="band">Common practice</Badge>}
         {t.isDefault && <Badge>Academy default</Badge>}
         {player && <Badge tone="lead">For {player}</Badge>}
-        {onEdit && <Button variant="secondary" className="ml-auto px-2 py-1 text-xs" onClick={onEdit}>{t.isDefault ? 'Copy and edit' : 'Edit'}</Button>}
+        {onEdit && <Button variant="secondary" className="ml-auto px-2 py-1 text-sm" onClick={onEdit}>{t.isDefault ? 'Copy and edit' : 'Edit'}</Button>}
       </header>
-      {t.description && <p className="mb-2 text-xs text-ink-muted">{t.description}</p>}
+      {t.description && <p className="mb-2 text-sm text-ink-muted">{t.description}</p>}
       <table className="w-full text-sm">
         <tbody>
           {t.checks.map((c, i) => (

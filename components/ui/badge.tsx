@@ -14,6 +14,6 @@ const tones: Record<Tone, string> = {
 
 export function Badge({ tone = 'neutral', children }: { tone?: Tone; children: ReactNode }) {
   return (
-    <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>
+    <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-sm font-medium ${tones[tone]}`}>{children}</span>
   );
 }

@@ -1,3 +1,4 @@
+// Every button is at least 44 px high (min-h-11): a finger on a tablet in the bay hits it (WCAG 2.5.5 target size).
 import type { ButtonHTMLAttributes } from 'react';
 
 type Variant = 'primary' | 'secondary' | 'danger';
@@ -9,7 +10,7 @@ const variants: Record<Variant, string> = {
 };
 
 export const buttonClass = (variant: Variant = 'primary') =>
-  `inline-flex items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium transition-colors disabled:cursor-not-allowed ${variants[variant]}`;
+  `inline-flex min-h-11 items-center justify-center gap-2 rounded-md px-3.5 py-2 text-sm font-medium transition-colors disabled:cursor-not-allowed ${variants[variant]}`;
 
 export function Button({
   variant = 'primary',

@@ -24,12 +24,12 @@ export function Field({
       </label>
       {children}
       {hint && !error && (
-        <p id={`${id}-hint`} className="text-xs text-ink-muted">
+        <p id={`${id}-hint`} className="text-sm text-ink-muted">
           {hint}
         </p>
       )}
       {error && (
-        <p id={`${id}-error`} role="alert" className="text-xs font-medium text-danger" data-field-error={id}>
+        <p id={`${id}-error`} role="alert" className="text-sm font-medium text-danger" data-field-error={id}>
           {error}
         </p>
       )}

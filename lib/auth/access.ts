@@ -46,7 +46,7 @@ async function requireOwnedBy(viewer: Viewer, athleteId: number | null, need: Ne
   return { athleteId, access: await requireAthlete(viewer, athleteId, need, what) };
 }
 
-// The bin: a session or recording a coach deleted (binned_at set) is unknown to every read and write (404) until it
+// The bin: a session or recording (and a drill, band or drill assignment) a coach deleted (binned_at set) is unknown to every read and write (404) until it
 // is restored; only the restore routes reach it, with `{ binned: true }`.
 
 /** A recording: read as its athlete; write (reprocess, delete) as the athlete's coach. */
@@ -99,8 +99,10 @@ export async function requireSwingsToUse(viewer: Viewer, swingIds: number[]): Pr
  * A band: a coach reads their own and the academy's shared bands; a student reads the bands of their coaches; only
  * the coach who built it writes (deletes) it.
  */
-export async function requireBand(viewer: Viewer, bandId: number, need: Need): Promise<void> {
-  const row = await db('bands').where({ id: bandId, academy_id: viewer.academyId }).first('owner_user_id', 'shared');
+export async function requireBand(viewer: Viewer, bandId: number, need: Need, opts: { binned?: boolean } = {}): Promise<void> {
+  const found = await db('bands').where({ id: bandId, academy_id: viewer.academyId }).first('owner_user_id', 'shared', 'binned_at');
+  // a band in the bin is known to its builder only
+  const row = found && (opts.binned ? found.binned_at !== null && found.owner_user_id === viewer.id : found.binned_at === null) ? found : undefined;
   const owner = row ? row.owner_user_id : null;
   let visible = false;
   if (row && viewer.role === 'coach') visible = owner === viewer.id || row.shared;
@@ -110,7 +112,7 @@ export async function requireBand(viewer: Viewer, bandId: number, need: Need): P
     );
   }
   if (!visible) throw new NotFoundError('No band with this id.');
-  if (need === 'write' && owner !== viewer.id) throw new ForbiddenError('Only the coach who built this band can delete it.');
+  if (need === 'write' && owner !== viewer.id) throw new ForbiddenError('Only the coach who built this band can change or delete it.');
 }
 
 /**
@@ -127,16 +129,20 @@ export async function requireTargetToWrite(viewer: Viewer, targetId: number): Pr
 }
 
 /** A drill, for writing: the coach's own library only; another coach's drill is a 404. */
-export async function requireDrillToWrite(viewer: Viewer, drillId: number): Promise<DrillRow> {
+export async function requireDrillToWrite(viewer: Viewer, drillId: number, opts: { binned?: boolean } = {}): Promise<DrillRow> {
   const row = await db('drills').where({ id: drillId }).first();
-  if (!row || row.owner_user_id !== viewer.id) throw new NotFoundError('No drill with this id.');
+  const visible = row && (opts.binned ? row.binned_at !== null : row.binned_at === null);
+  if (!row || !visible || row.owner_user_id !== viewer.id) throw new NotFoundError('No drill with this id.');
   return row;
 }
 
 /** A drill assignment: as its athlete (the student writes practice done and a note; the coach the due date). */
-export async function requireAssignment(viewer: Viewer, assignmentId: number): Promise<{ row: DrillAssignmentRow; access: AthleteAccess }> {
+export async function requireAssignment(viewer: Viewer, assignmentId: number, opts: { binned?: boolean } = {}): Promise<{ row: DrillAssignmentRow; access: AthleteAccess }> {
+  // an assignment of a binned drill is in the bin with it
   const row = await db('drill_assignments').where({ id: assignmentId }).first();
-  if (!row) throw new NotFoundError('No drill assignment with this id.');
+  const drill = row ? await db('drills').where({ id: row.drill_id }).first('binned_at') : undefined;
+  const visible = row && drill && drill.binned_at === null && (opts.binned ? row.binned_at !== null : row.binned_at === null);
+  if (!row || !visible) throw new NotFoundError('No drill assignment with this id.');
   const { access } = await requireOwnedBy(viewer, row.athlete_id, 'read', 'drill assignment');
   return { row, access };
 }

@@ -1,10 +1,12 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { NotFoundError } from '@/lib/http';
+import { ConflictError, NotFoundError } from '@/lib/http';
+import { restorableUntil, withinBin } from '@/lib/sessions/store';
+import { BIN_DAYS, type BinnedRef } from '@/lib/contracts/sessions';
 import { requireBand, requireSwingsToUse } from '@/lib/auth/access';
 import { parseStoredSeries } from '@/lib/swings/stored-series';
-import { MIN_BAND_SWINGS, type BandDetail, type BandInput, type BandSummary } from '@/lib/contracts/bands';
+import { MIN_BAND_SWINGS, type BandDetail, type BandInput, type BandPatch, type BandSummary } from '@/lib/contracts/bands';
 import { ZodError } from 'zod';
 import { BAND_CURVES, BAND_EVENTS, BAND_POINTS, buildBand, unusableReason, type BandData, type SwingCurves } from './build';
 import { jsonColumnOf } from '@/lib/db/values';
@@ -83,7 +85,7 @@ export async function createBand(viewer: Viewer, input: BandInput): Promise<{ id
 const parse = jsonColumnOf;
 
 function visibleQuery(viewer: Viewer) {
-  const q = db('bands as b').join('users as u', 'u.id', 'b.owner_user_id').where('b.academy_id', viewer.academyId);
+  const q = db('bands as b').join('users as u', 'u.id', 'b.owner_user_id').where('b.academy_id', viewer.academyId).whereNull('b.binned_at');
   if (viewer.role === 'coach') q.andWhere((w) => w.where('b.owner_user_id', viewer.id).orWhere('b.shared', true));
   else {
     const coaches = db('coach_athletes as c').join('athletes as a', 'a.id', 'c.athlete_id').where('a.user_id', viewer.id).select('c.coach_user_id');
@@ -92,9 +94,24 @@ function visibleQuery(viewer: Viewer) {
   return q;
 }
 
+const SUMMARY_COLUMNS = ['b.id', 'b.name', 'b.swing_ids', 'b.k', 'b.shared', 'b.created_at', 'b.owner_user_id', 'u.name as owner_name'];
+
 export async function listBands(viewer: Viewer): Promise<BandSummary[]> {
-  const rows = await visibleQuery(viewer).select('b.id', 'b.name', 'b.swing_ids', 'b.k', 'b.shared', 'b.created_at', 'b.owner_user_id', 'u.name as owner_name').orderBy('b.id', 'desc');
-  return rows.map((r) => ({
+  const rows = await visibleQuery(viewer).select(SUMMARY_COLUMNS).orderBy('b.id', 'desc');
+  return rows.map(toSummary);
+}
+
+async function bandSummary(viewer: Viewer, id: number): Promise<BandSummary> {
+  const row = await visibleQuery(viewer).where('b.id', id).first(SUMMARY_COLUMNS);
+  if (!row) throw new NotFoundError('No band with this id.');
+  return toSummary(row);
+}
+
+/** a row of SUMMARY_COLUMNS (an aliased join: knex types only plain tables) */
+type SummaryRow = { id: number; name: string; swing_ids: string; k: number; shared: boolean; created_at: Date; owner_user_id: number; owner_name: string };
+
+function toSummary(r: SummaryRow): BandSummary {
+  return ({
     id: Number(r.id),
     name: r.name,
     swingCount: parse<number[]>(r.swing_ids).length,
@@ -103,7 +120,7 @@ export async function listBands(viewer: Viewer): Promise<BandSummary[]> {
     ownerUserId: Number(r.owner_user_id),
     ownerName: r.owner_name,
     createdAt: new Date(r.created_at).toISOString(),
-  }));
+  });
 }
 
 export interface BandView extends BandData {
@@ -151,7 +168,30 @@ export function bandJson(b: BandView): BandDetail {
   return { ...b, curves };
 }
 
-export async function deleteBand(viewer: Viewer, id: number): Promise<void> {
+/** Rename, share or stop sharing: the coach who built it. */
+export async function updateBand(viewer: Viewer, id: number, patch: BandPatch): Promise<BandSummary> {
   await requireBand(viewer, id, 'write');
-  await db('bands').where({ id }).delete();
+  const columns: Record<string, unknown> = {};
+  if (patch.name !== undefined) columns.name = patch.name;
+  if (patch.shared !== undefined) columns.shared = patch.shared;
+  await db('bands').where({ id }).update(columns);
+  return bandSummary(viewer, id);
+}
+
+/** To the bin (restorable for BIN_DAYS days; the sweep removes it after that). */
+export async function deleteBand(viewer: Viewer, id: number): Promise<BinnedRef> {
+  await requireBand(viewer, id, 'write');
+  await db('bands').where({ id }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+  const row = await db('bands').where({ id }).first('id', 'name', 'binned_at');
+  if (!row) throw new NotFoundError('No band with this id.');
+  return { id: Number(row.id), name: row.name, binnedAt: row.binned_at ? new Date(row.binned_at).toISOString() : null, restorableUntil: restorableUntil(row.binned_at) };
+}
+
+export async function restoreBand(viewer: Viewer, id: number, now = new Date()): Promise<BandSummary> {
+  await requireBand(viewer, id, 'write', { binned: true });
+  const row = await db('bands').where({ id }).first('binned_at');
+  if (!row || !row.binned_at) throw new NotFoundError('No band with this id in the bin.');
+  if (!withinBin(row.binned_at, now)) throw new ConflictError(`This band was deleted more than ${BIN_DAYS} days ago and can no longer be restored.`);
+  await db('bands').where({ id }).update({ binned_at: null });
+  return bandSummary(viewer, id);
 }

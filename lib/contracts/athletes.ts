@@ -46,6 +46,8 @@ export const athleteListQuerySchema = z.object({
   q: z.string().trim().max(120).optional().transform((v) => (v ? v : undefined)),
   context: z.enum(sessionContextValues).optional(),
   handedness: z.enum(handednessValues).optional(),
+  /** true: only the archived players (to restore them); otherwise they are left out */
+  archived: z.boolean().optional(),
 });
 
 export type AthleteListQuery = Partial<z.infer<typeof athleteListQuerySchema>>;
@@ -72,6 +74,8 @@ export const athleteSummarySchema = z.object({
   dateOfBirth: z.string().nullable(),
   homeClub: z.string().nullable(),
   lastSession: z.object({ date: z.string(), context: z.enum(sessionContextValues) }).nullable(),
+  /** when a coach archived the player (ISO time); null on the roster */
+  archivedAt: z.string().nullable(),
 });
 
 /** GET /api/athletes: the roster in name order (?limit=&offset=; `page` says which part). */

@@ -2,6 +2,7 @@
 // send them, the client parses them through lib/fetcher.ts; the band builder's form uses bandInputSchema.
 import { z } from 'zod';
 import { EVENT_NAMES, type EventName } from '@/lib/signal/types';
+import { binnedRefSchema } from './sessions';
 
 /** fewer swings say nothing about spread */
 export const MIN_BAND_SWINGS = 3;
@@ -15,6 +16,11 @@ export const bandInputSchema = z.strictObject({
   shared: z.boolean().default(false),
 });
 export type BandInput = z.infer<typeof bandInputSchema>;
+/** PATCH /api/bands/:id: rename, share or stop sharing (the swings and k stay: build a new band for those). */
+export const bandPatchSchema = z
+  .strictObject({ name: bandInputSchema.shape.name.optional(), shared: z.boolean({ error: 'shared is true or false.' }).optional() })
+  .refine((v) => Object.keys(v).length > 0, { error: 'Change at least one field.' });
+export type BandPatch = z.infer<typeof bandPatchSchema>;
 
 // --- responses ---
 export const bandSummarySchema = z.object({
@@ -29,6 +35,9 @@ export const bandSummarySchema = z.object({
 });
 export type BandSummary = z.infer<typeof bandSummarySchema>;
 export const bandsResponseSchema = z.object({ bands: z.array(bandSummarySchema) });
+export const bandResponseSchema = z.object({ band: bandSummarySchema });
+/** DELETE /api/bands/:id: the band went to the bin; POST .../restore answers bandResponseSchema */
+export const bandBinnedResponseSchema = z.object({ band: binnedRefSchema });
 export const bandCreatedSchema = z.object({ id: z.number(), swingCount: z.number() });
 
 /** JSON has no NaN: a point where no swing had a value goes out as null. */

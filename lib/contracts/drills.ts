@@ -3,6 +3,7 @@
 // through lib/fetcher.ts; the drill, assign and practice forms use the request schemas.
 import { z } from 'zod';
 import { MEASURES, TARGET_EVENTS } from './targets';
+import { binnedRefSchema } from './sessions';
 
 // --- request bodies ---
 export const drillInputSchema = z.strictObject({
@@ -38,6 +39,8 @@ export type Drill = z.infer<typeof drillSchema>;
 /** `caution` is the general caution shown with every drill (coaching information; pain; medical advice; minors). */
 export const drillsResponseSchema = z.object({ drills: z.array(drillSchema), caution: z.string() });
 export const drillResponseSchema = z.object({ drill: drillSchema });
+/** DELETE /api/drills/:id: the drill went to the bin (its assignments with it); POST .../restore answers drillResponseSchema */
+export const drillBinnedResponseSchema = z.object({ drill: binnedRefSchema });
 
 export const assignmentSchema = z.object({
   id: z.number(),
@@ -56,6 +59,8 @@ export type DrillAssignment = z.infer<typeof assignmentSchema>;
 /** GET /api/drill-assignments adds the general caution; GET /api/athletes/:id/drill-assignments does not. */
 export const assignmentsResponseSchema = z.object({ assignments: z.array(assignmentSchema), caution: z.string().optional() });
 export const assignmentResponseSchema = z.object({ assignment: assignmentSchema });
+/** DELETE /api/drill-assignments/:id (`name` is the drill's); POST .../restore answers assignmentResponseSchema */
+export const assignmentBinnedResponseSchema = z.object({ assignment: binnedRefSchema });
 
 const statSchema = z.object({ mean: z.number(), n: z.number() }).nullable();
 export const checkMoveSchema = addressedCheckSchema.extend({ before: statSchema, after: statSchema, moved: z.number().nullable() });

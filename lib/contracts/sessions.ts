@@ -10,6 +10,10 @@ export const SESSION_NOTES_MAX = 4000;
 /** Days a binned session or recording can be restored; the sweep removes it after that. */
 export const BIN_DAYS = 30;
 
+/** What DELETE answers for a drill, band or drill assignment moved to the bin (restorable until the given day). */
+export const binnedRefSchema = z.object({ id: z.number(), name: z.string(), binnedAt: z.string().nullable(), restorableUntil: z.string().nullable() });
+export type BinnedRef = z.infer<typeof binnedRefSchema>;
+
 const optionalText = (max: number) =>
   z
     .string({ error: 'Use text.' })

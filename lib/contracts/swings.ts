@@ -107,10 +107,14 @@ export const swingViewSchema = swingDetailSchema.extend({
     copY: nullableSeries,
     copSpeed: nullableSeries,
   }),
+  /** the whole recording, min/max per display bucket (at most 2,000 points per trace) */
   overview: z.object({
     time: z.array(z.number()),
     leadPct: nullableSeries,
     copX: nullableSeries,
+    leadHeelPct: nullableSeries,
+    trailHeelPct: nullableSeries,
+    copSpeed: nullableSeries,
     /** moves the swing finder looked at and did not count, with the reason in plain words */
     candidates: z.array(z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() })),
   }),

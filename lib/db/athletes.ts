@@ -24,6 +24,7 @@ type AthleteRow = {
   home_club: string | null;
   last_session_date: unknown;
   last_session_context: string | null;
+  archived_at: Date | null;
 };
 
 function toSummary(row: AthleteRow): AthleteSummary {
@@ -39,6 +40,7 @@ function toSummary(row: AthleteRow): AthleteSummary {
       lastDate && row.last_session_context
         ? { date: lastDate, context: row.last_session_context as NonNullable<AthleteSummary['lastSession']>['context'] }
         : null,
+    archivedAt: row.archived_at ? new Date(row.archived_at).toISOString() : null,
   };
 }
 
@@ -51,6 +53,7 @@ function scopedAthletes(viewer: Viewer): Knex.QueryBuilder {
       'a.stance_width_mm',
       'a.date_of_birth',
       'a.home_club',
+      'a.archived_at',
       db.raw(
         '(select p.session_date from practice_sessions p where p.athlete_id = a.id and p.binned_at is null order by p.session_date desc, p.id desc limit 1) as last_session_date',
       ),
@@ -95,6 +98,9 @@ export async function listAthletesPage(viewer: Viewer, filters: AthleteListQuery
 
 function filteredAthletes(viewer: Viewer, filters: AthleteListQuery): Knex.QueryBuilder {
   const query = scopedAthletes(viewer);
+  // the roster and every pick list leave archived players out; `archived` lists only them (to restore)
+  if (filters.archived) query.whereNotNull('a.archived_at');
+  else query.whereNull('a.archived_at');
   if (filters.q) {
     const pattern = containsPattern(filters.q);
     query.where((w) => w.where('a.display_name', 'like', pattern).orWhere('a.home_club', 'like', pattern));
@@ -151,6 +157,18 @@ export async function updateAthleteForViewer(viewer: Viewer, athleteId: number, 
   await db('athletes')
     .where({ id: athleteId })
     .update({ ...toColumns(patch), updated_at: new Date() });
+  return getAthleteForViewer(viewer, athleteId);
+}
+
+/**
+ * Archive (coach of the player): they leave the roster and pick lists; sessions, swings, notes and drills stay, and
+ * the player's own page still opens. Restore clears the mark. Both answer the player as saved.
+ */
+export async function setAthleteArchived(viewer: Viewer, athleteId: number, archived: boolean): Promise<AthleteSummary> {
+  await getAthleteForViewer(viewer, athleteId);
+  await db('athletes')
+    .where({ id: athleteId })
+    .update({ archived_at: archived ? db.raw('NOW(3)') : null, updated_at: new Date() });
   return getAthleteForViewer(viewer, athleteId);
 }
 

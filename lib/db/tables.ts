@@ -36,6 +36,8 @@ export interface BandRow {
   shared: boolean;
   data: JsonText;
   created_at: Date;
+  /** set while in the bin (DELETE); restore clears it */
+  binned_at: Date | null;
 }
 export interface DrillRow {
   id: Id;
@@ -47,6 +49,8 @@ export interface DrillRow {
   cautions: string;
   created_at: Date;
   updated_at: Date;
+  /** set while in the bin (DELETE); restore clears it */
+  binned_at: Date | null;
 }
 export interface DrillAssignmentRow {
   id: Id;
@@ -58,4 +62,6 @@ export interface DrillAssignmentRow {
   practice_done: boolean;
   done_at: Date | null;
   student_note: string | null;
+  /** set while in the bin (DELETE); restore clears it */
+  binned_at: Date | null;
 }

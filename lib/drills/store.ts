@@ -4,7 +4,9 @@ import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import type { DrillAssignmentRow, DrillRow } from '@/lib/db/tables';
 import { jsonColumnOf, toIsoDate, toIsoTime } from '@/lib/db/values';
-import { ForbiddenError, NotFoundError } from '@/lib/http';
+import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
+import { restorableUntil, withinBin } from '@/lib/sessions/store';
+import { BIN_DAYS, type BinnedRef } from '@/lib/contracts/sessions';
 import { requireAssignment, requireAthlete, requireDrillToWrite, requireSession } from '@/lib/auth/access';
 import { swingFacts } from '@/lib/targets/swing-facts';
 import type { DrillInput } from '@/lib/contracts/drills';
@@ -35,10 +37,16 @@ async function studentAthleteId(viewer: Viewer): Promise<number | null> {
 }
 
 export async function listDrills(viewer: Viewer): Promise<Drill[]> {
-  if (viewer.role === 'coach') return (await db('drills').where({ owner_user_id: viewer.id }).orderBy('id')).map(toDrill);
+  if (viewer.role === 'coach') return (await db('drills').where({ owner_user_id: viewer.id }).whereNull('binned_at').orderBy('id')).map(toDrill);
   const athleteId = await studentAthleteId(viewer);
   if (athleteId === null) return [];
-  const rows = await db('drills as d').join('drill_assignments as a', 'a.drill_id', 'd.id').where('a.athlete_id', athleteId).distinct('d.*').orderBy('d.id');
+  const rows = await db('drills as d')
+    .join('drill_assignments as a', 'a.drill_id', 'd.id')
+    .where('a.athlete_id', athleteId)
+    .whereNull('d.binned_at')
+    .whereNull('a.binned_at')
+    .distinct('d.*')
+    .orderBy('d.id');
   return rows.map(toDrill);
 }
 
@@ -64,9 +72,28 @@ export async function updateDrill(viewer: Viewer, id: number, input: Partial<Dri
   return savedDrill(id);
 }
 
-export async function deleteDrill(viewer: Viewer, id: number): Promise<void> {
+function binnedRef(row: { id: number; binned_at: Date | null }, name: string): BinnedRef {
+  return { id: Number(row.id), name, binnedAt: toIsoTime(row.binned_at), restorableUntil: restorableUntil(row.binned_at) };
+}
+
+function tooOld(what: string): ConflictError {
+  return new ConflictError(`This ${what} was deleted more than ${BIN_DAYS} days ago and can no longer be restored.`);
+}
+
+/** To the bin, its assignments with it (hidden while the drill is binned); restorable for BIN_DAYS days. */
+export async function deleteDrill(viewer: Viewer, id: number): Promise<BinnedRef> {
   await ownDrill(viewer, id);
-  await db('drills').where({ id }).delete();
+  await db('drills').where({ id }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+  const row = await db('drills').where({ id }).first();
+  if (!row) throw new NotFoundError('No drill with this id.');
+  return binnedRef(row, row.name);
+}
+
+export async function restoreDrill(viewer: Viewer, id: number, now = new Date()): Promise<Drill> {
+  const row = await requireDrillToWrite(viewer, id, { binned: true });
+  if (!withinBin(row.binned_at as Date, now)) throw tooOld('drill');
+  await db('drills').where({ id }).update({ binned_at: null });
+  return savedDrill(id);
 }
 
 /** A row of assignmentQuery(): the assignment, its drill's fields and the athlete's name (a join, so typed here). */
@@ -91,11 +118,12 @@ const assignmentQuery = () =>
   db('drill_assignments as a')
     .join('drills as d', 'd.id', 'a.drill_id')
     .join('athletes as t', 't.id', 'a.athlete_id')
+    .whereNull('d.binned_at')
     .select('a.*', 'd.name', 'd.steps', 'd.addresses_checks', 'd.cautions', 'd.owner_user_id', 't.display_name')
     .orderBy([{ column: 'a.due_date', order: 'desc' }, { column: 'a.id', order: 'desc' }]);
 
 export async function listAssignments(viewer: Viewer, athleteId?: number): Promise<DrillAssignment[]> {
-  const q = assignmentQuery();
+  const q = assignmentQuery().whereNull('a.binned_at');
   if (viewer.role === 'coach') q.whereIn('a.athlete_id', db('coach_athletes').where({ coach_user_id: viewer.id }).select('athlete_id'));
   else {
     const own = await studentAthleteId(viewer);
@@ -142,6 +170,24 @@ export async function updateAssignment(viewer: Viewer, id: number, patch: { prac
   return toAssignment(await assignmentQuery().where('a.id', id).first());
 }
 
+/** The athlete's coach takes an assignment back: to the bin, restorable for BIN_DAYS days. */
+export async function deleteAssignment(viewer: Viewer, id: number): Promise<BinnedRef> {
+  const { access } = await requireAssignment(viewer, id);
+  if (access !== 'coach') throw new ForbiddenError('Only your coach can remove a drill from your list.');
+  await db('drill_assignments').where({ id }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+  const row = await assignmentQuery().where('a.id', id).first();
+  if (!row) throw new NotFoundError('No drill assignment with this id.');
+  return binnedRef(row, row.name);
+}
+
+export async function restoreAssignment(viewer: Viewer, id: number, now = new Date()): Promise<DrillAssignment> {
+  const { row, access } = await requireAssignment(viewer, id, { binned: true });
+  if (access !== 'coach') throw new ForbiddenError('Only your coach can put a drill back on your list.');
+  if (!withinBin(row.binned_at as Date, now)) throw tooOld('drill assignment');
+  await db('drill_assignments').where({ id }).update({ binned_at: null });
+  return toAssignment(await assignmentQuery().where('a.id', id).first());
+}
+
 export interface DrillReport {
   sessionId: number;
   sessionDate: string;
@@ -153,7 +199,7 @@ export async function drillReport(viewer: Viewer, sessionId: number): Promise<Dr
   const { athleteId } = await requireSession(viewer, sessionId, 'read');
   const session = await db('practice_sessions').where({ id: sessionId }).first('session_date');
   const sessionDate = toIsoDate(session.session_date) ?? '';
-  const rows = (await assignmentQuery().where('a.athlete_id', athleteId)).map(toAssignment).filter((a) => a.assignedAt <= sessionDate);
+  const rows = (await assignmentQuery().where('a.athlete_id', athleteId).whereNull('a.binned_at')).map(toAssignment).filter((a) => a.assignedAt <= sessionDate);
   const facts = rows.length > 0 ? await swingFacts({ athleteId }) : [];
   return {
     sessionId,

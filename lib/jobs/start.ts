@@ -27,10 +27,10 @@ export function startAppWorker(): Worker | null {
     log: (message) => console.error(`[stanceline worker] ${message}`),
   });
   globalForWorker.__stancelineWorker = worker;
-  // The bin's sweep (sessions and recordings deleted more than 30 days ago) runs beside the worker, once an hour.
+  // The bin's sweep (sessions, recordings, drills, bands and assignments deleted more than 30 days ago) runs beside the worker, once an hour.
   const sweep = () =>
     void sweepBin(db, getStore())
-      .then((r) => r.sessions + r.recordings > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files`))
+      .then((r) => r.sessions + r.recordings + r.library > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files, ${r.library} drills, bands and assignments`))
       .catch((error) => console.error('[stanceline bin] sweep failed', error));
   sweep();
   setInterval(sweep, BIN_SWEEP_EVERY_MS).unref();

@@ -6,7 +6,9 @@ import { BIN_DAYS } from '@/lib/contracts/sessions';
 // (one transaction; the foreign keys cascade to swings, events, series, labels, notes, jobs and shots), then their raw
 // files. A file left behind by a crash between the two is harmless; a row without its file would not be.
 
-export type SweepResult = { sessions: number; recordings: number; files: number };
+// Drills (with their assignments), bands and drill assignments binned more than BIN_DAYS days ago go in the same
+// transaction; they have no files. `library` counts those rows.
+export type SweepResult = { sessions: number; recordings: number; files: number; library: number };
 
 export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()): Promise<SweepResult> {
   const cutoff = new Date(now.getTime() - BIN_DAYS * 24 * 60 * 60 * 1000);
@@ -33,7 +35,11 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
     if (shotImports.length > 0) await trx('shot_imports').whereIn('id', shotImports.map((r) => Number(r.id))).delete();
     if (recordings.length > 0) await trx('recordings').whereIn('id', recordings.map((r) => Number(r.id))).delete();
     if (sessions.length > 0) await trx('practice_sessions').whereIn('id', sessions).delete();
-    return { sessions: sessions.length, recordings: recordings.length };
+    let library = 0;
+    for (const table of ['drill_assignments', 'drills', 'bands'] as const) {
+      library += await trx(table).whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
+    }
+    return { sessions: sessions.length, recordings: recordings.length, library };
   });
   let files = 0;
   for (const key of keys) {

@@ -11,6 +11,7 @@ import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options'
 import type { SwingView } from '@/lib/contracts/swings';
 import { jsonColumn } from '@/lib/db/values';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
+import { coarsenDisplay } from './coarsen-display';
 import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
 
 export type SwingPayload = Pick<SwingView, 'series' | 'overview' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames'>;
@@ -62,10 +63,21 @@ async function overviewView(conn: Knex, recordingId: number): Promise<SwingView[
     reason: String(c.reason),
     reasonText: REJECT_REASONS[c.reason as RejectReason] ?? String(c.reason),
   }));
-  if (!row) return { time: [], leadPct: [], copX: [], candidates };
+  if (!row) return { time: [], leadPct: [], copX: [], leadHeelPct: [], trailHeelPct: [], copSpeed: [], candidates };
   const data = jsonColumn<Pick<DisplaySeries, 't' | 'traces'>>(row.data)!;
-  const o = overviewOf({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, ['lead_pct', 'cop_x_mm']);
-  return { time: o.time, leadPct: o.traces.lead_pct.map(r1), copX: o.traces.cop_x_mm.map(r1), candidates };
+  // the whole recording for the overview strip and the viewer's "Whole recording" zoom, coarsened for display
+  const names = ['lead_pct', 'cop_x_mm', 'lead_heel_pct', 'trail_heel_pct', 'cop_speed_mm_s'] as const;
+  const o = overviewOf(coarsenDisplay({ bucketS: Number(row.bucket_s), t: data.t, traces: data.traces }, names), names);
+  const tr = o.traces;
+  return {
+    time: o.time,
+    leadPct: tr.lead_pct.map(r1),
+    copX: tr.cop_x_mm.map(r1),
+    leadHeelPct: tr.lead_heel_pct.map(r1),
+    trailHeelPct: tr.trail_heel_pct.map(r1),
+    copSpeed: tr.cop_speed_mm_s.map(r1),
+    candidates,
+  };
 }
 
 /** The layout the recording was processed with, and the handedness and stance width of its parameters. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { stepCursor, stepForKey } from '@/components/charts/lib/keyboard';
-import { labelRows } from '@/components/charts/lib/label-layout';
+import { labelRows, placeLabels } from '@/components/charts/lib/label-layout';
 import { phaseAt, phaseSpans } from '@/components/charts/lib/phase-bands';
 import type { SwingEvents } from '@/components/charts/lib/types';
 
@@ -71,5 +71,37 @@ describe('labelRows(slots)', () => {
   it('moves an overlapping label to the next row and reuses the first row when there is room', () => {
     // top and transition 10 px apart with 40 px labels overlap; impact is far enough to go back to row 0
     expect(labelRows([{ x: 100, width: 40 }, { x: 110, width: 40 }, { x: 200, width: 40 }])).toEqual([0, 1, 0]);
+  });
+});
+
+describe('placeLabels(slots, maxX)', () => {
+  // The property the issue asks for: no two labels in one row overlap, and every label stays inside [0, maxX].
+  const overlapFree = (slots: { x: number; width: number }[], out: { row: number; x: number }[], gap: number) => {
+    for (let i = 0; i < slots.length; i++) {
+      const a = out[i];
+      expect(a.x - slots[i].width / 2).toBeGreaterThanOrEqual(-1e-9);
+      for (let j = i + 1; j < slots.length; j++) {
+        const b = out[j];
+        if (a.row !== b.row) continue;
+        const apart = Math.abs(a.x - b.x) - (slots[i].width + slots[j].width) / 2;
+        expect(apart).toBeGreaterThanOrEqual(gap - 1e-9);
+      }
+    }
+  };
+
+  it('five labels on one pixel (the whole-recording zoom): three rows, staggered, none overlapping', () => {
+    const slots = ['address', 'top', 'transition', 'impact', 'finish'].map((n) => ({ x: 300, width: n.length * 10.5 * 0.56 }));
+    const out = placeLabels(slots, 800, 4, 3);
+    overlapFree(slots, out, 4);
+    expect(new Set(out.map((o) => o.row)).size).toBe(3);
+  });
+
+  it('top and transition 3 px apart keep their own x in two rows; a label at the right edge slides in', () => {
+    const slots = [{ x: 400, width: 20 }, { x: 403, width: 56 }, { x: 798, width: 30 }];
+    const out = placeLabels(slots, 800);
+    expect(out[0]).toEqual({ row: 0, x: 400 });
+    expect(out[1]).toEqual({ row: 1, x: 403 });
+    expect(out[2].x).toBe(785);
+    overlapFree(slots, out, 4);
   });
 });

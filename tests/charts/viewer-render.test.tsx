@@ -5,6 +5,7 @@ import { TimeSeriesChart } from '@/components/charts/time-series-chart';
 import { StancePathChart } from '@/components/charts/stance-path-chart';
 import { ValuesPanel } from '@/components/charts/values-panel';
 import { syntheticSwings } from './synthetic-swing';
+import { OVERLAY_STYLE } from '@/components/charts/lib/palette';
 
 const data = syntheticSwings(7, 2);
 const [first, second] = data.swings;
@@ -67,7 +68,7 @@ describe('SwingTraceViewer (static render of a synthetic swing)', () => {
       <SwingTraceViewer {...base} overlay={{ label: 'swing 2', series: data.series, events: second.events }} leadBand={band} />,
     );
     expect(count(html, 'data-line="overlay-')).toBe(4); // lead %, both heels, COP speed
-    expect(html).toContain('stroke-dasharray="1.5 3.5"');
+    expect(html).toContain(`stroke-dasharray="${OVERLAY_STYLE.dash}"`);
     expect(html).toContain('data-layer="band"');
     expect(count(html, 'data-band-edge=')).toBe(2); // lower and upper edge in the darker band hue (SC 1.4.11)
     expect(html).toContain('data-overlay-path');

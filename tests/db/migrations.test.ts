@@ -62,6 +62,11 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_users_shot_units', 'users', 'shot_units'],
   // a student's opt-out of drill reminder mails
   ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
+  // archived players (kept with their data) and the bin of drills, bands and drill assignments
+  ['add_athletes_archived_at', 'athletes', 'archived_at'],
+  ['add_drills_binned_at', 'drills', 'binned_at'],
+  ['add_bands_binned_at', 'bands', 'binned_at'],
+  ['add_drill_assignments_binned_at', 'drill_assignments', 'binned_at'],
 ];
 
 let scratch: ScratchDatabase;

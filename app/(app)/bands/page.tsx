@@ -13,13 +13,13 @@ export default async function BandsPage() {
   const athletes = await swingChoicesFor(viewer);
   return (
     <>
-      <PageHeader title="Reference bands" subtitle="A band is the mean ± k SD of chosen swings, registered at their events onto a 0–100 % swing axis." />
+      <PageHeader title="Reference bands" subtitle="A band is the typical range of chosen swings: their average, plus and minus a chosen number of typical spreads, lined up at address, top, transition, impact and finish." />
       <div className="space-y-6">
         <Card title="Build a band">
           <BandBuilder athletes={athletes} />
         </Card>
         <Card title="Bands">
-          <BandList />
+          <BandList viewerId={viewer.id} />
         </Card>
       </div>
     </>

@@ -15,6 +15,7 @@ export const GET = withErrors(async (request: Request) => {
     q: url.searchParams.get('q') ?? undefined,
     context: url.searchParams.get('context') || undefined,
     handedness: url.searchParams.get('handedness') || undefined,
+    archived: url.searchParams.get('archived') === 'true' ? true : undefined,
   });
   return json(await listAthletesPage(viewer, filters, pageQueryOf(url, ROSTER_MAX)));
 });

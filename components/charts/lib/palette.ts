@@ -29,7 +29,8 @@ export const TONE_STYLE: Record<LineTone, { stroke: string; dash: string | undef
  * The compared swing: dotted and thinner so the swing under study stays in front. Not faded: at 75 % opacity the
  * vermillion fell below the 3:1 that WCAG 2.1 SC 1.4.11 asks of a line that carries meaning.
  */
-export const OVERLAY_STYLE = { dash: '1.5 3.5', width: 1.5, opacity: 1 } as const;
+// round dots 3 px wide every 5 px against the 2 px solid (or dashed) line: told apart by width and dash, not by colour alone
+export const OVERLAY_STYLE = { dash: '0.1 5', width: 3, opacity: 1 } as const;
 
 /** Opacity of the reference band's sky-blue area; its edges are drawn in CHART_COLOURS.bandEdge. */
 export const BAND_FILL_OPACITY = 0.2;

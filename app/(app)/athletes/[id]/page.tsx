@@ -13,6 +13,7 @@ import { AccountLinkForm } from '@/components/athletes/account-link-form';
 import { linkedAccount } from '@/lib/athletes/account-link';
 import { Card } from '@/components/ui/card';
 import { ConsentPanel } from '@/components/research/consent-panel';
+import { ArchiveAthlete } from '@/components/athletes/athlete-archive';
 
 export const metadata: Metadata = { title: 'Athlete' };
 
@@ -54,6 +55,11 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
           </div>
         }
       />
+      {viewer.role === 'coach' && athlete.archivedAt && (
+        <div className="mb-4">
+          <ArchiveAthlete athlete={athlete} />
+        </div>
+      )}
       {viewer.role === 'coach' && (
         <div className="mb-4">
           <SessionBin athleteId={athlete.id} justBinned={binned.success ? binned.data : null} />
@@ -65,6 +71,13 @@ export default async function AthletePage({ params, searchParams }: { params: Pr
           <Card title="Student account">
             <AccountLinkForm athleteId={athlete.id} account={account} />
           </Card>
+          {!athlete.archivedAt && (
+            <div className="mt-6">
+              <Card title="Archive">
+                <ArchiveAthlete athlete={athlete} />
+              </Card>
+            </div>
+          )}
         </div>
       )}
       <div className="mt-6">

@@ -6,6 +6,7 @@ import { ShareWithStudent } from '@/components/accounts/share-with-student';
 import { CoachingCaution } from '@/components/cautions/coaching-caution';
 import { MinorConsentNote } from '@/components/cautions/minor-consent-note';
 import { ProcessingParameters } from '@/components/swings/processing-parameters';
+import { sessionSwingNumbers } from '@/lib/recordings/views';
 import type { SwingDetail } from '@/lib/contracts/swings';
 import { SwingWorkbench } from '@/components/swings/swing-workbench';
 import { Badge } from '@/components/ui/badge';
@@ -37,6 +38,8 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
   // The lead (target-side) foot of a right-handed golfer is the left one.
   const handedness = swing.recording.parameters.handedness;
   const leadFoot = handedness === 'right' ? 'left' : handedness === 'left' ? 'right' : null;
+  // the number the session's swing table shows (1..N over the whole session in time order), not the file's own
+  const number = (await sessionSwingNumbers([swing.session.id])).get(swing.id) ?? swing.index;
   return (
     <>
       <nav aria-label="Breadcrumb" className="mb-2 text-sm text-ink-muted">
@@ -50,8 +53,8 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
         / {swing.recording.filename}
       </nav>
       <PageHeader
-        title={`Swing ${swing.index}`}
-        subtitle={`${swing.recording.filename}, ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s of the recording${leadFoot ? ` · lead foot ${leadFoot}` : ''}`}
+        title={`Swing ${number}`}
+        subtitle={`${swing.recording.filename} (swing ${swing.index} of the file), ${swing.startS.toFixed(3)}–${swing.endS.toFixed(3)} s of the recording${leadFoot ? ` · lead foot ${leadFoot}` : ''}`}
         action={
           <span className="flex gap-2">
             {swing.hidden && <Badge tone="neutral">Marked as not a swing</Badge>}

@@ -1,6 +1,7 @@
 import { requireRole } from '@/lib/auth/roles';
-import { bandJson, deleteBand, getBand } from '@/lib/bands/store';
-import { json, parseId, withErrors } from '@/lib/http';
+import { bandJson, deleteBand, getBand, updateBand } from '@/lib/bands/store';
+import { json, parseId, readJson, withErrors } from '@/lib/http';
+import { bandPatchSchema } from '@/lib/contracts/bands';
 
 export const dynamic = 'force-dynamic';
 type Context = { params: Promise<{ id: string }> };
@@ -11,9 +12,16 @@ export const GET = withErrors(async (_request: Request, { params }: Context) => 
   return json({ band: bandJson(await getBand(viewer, parseId((await params).id))) });
 });
 
-// DELETE: the coach who built it.
+// PATCH { name?, shared? }: the coach who built it.
+export const PATCH = withErrors(async (request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach');
+  const id = parseId((await params).id);
+  const patch = bandPatchSchema.parse(await readJson(request));
+  return json({ band: await updateBand(viewer, id, patch) });
+});
+
+// DELETE: the coach who built it; the band goes to the bin (POST /api/bands/:id/restore within 30 days).
 export const DELETE = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
-  await deleteBand(viewer, parseId((await params).id));
-  return json({ ok: true });
+  return json({ band: await deleteBand(viewer, parseId((await params).id)) });
 });

@@ -1,5 +1,5 @@
 import { requireRole } from '@/lib/auth/roles';
-import { updateAssignment } from '@/lib/drills/store';
+import { deleteAssignment, updateAssignment } from '@/lib/drills/store';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { assignmentPatchSchema } from '@/lib/contracts/drills';
 
@@ -12,4 +12,10 @@ export const PATCH = withErrors(async (request: Request, { params }: Context) =>
   const id = parseId((await params).id);
   const input = assignmentPatchSchema.parse(await readJson(request));
   return json({ assignment: await updateAssignment(viewer, id, input) });
+});
+
+// DELETE: the athlete's coach takes the assignment back; it goes to the bin (POST .../restore within 30 days).
+export const DELETE = withErrors(async (_request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach', 'student');
+  return json({ assignment: await deleteAssignment(viewer, parseId((await params).id)) });
 });

@@ -14,8 +14,8 @@ export const PATCH = withErrors(async (request: Request, { params }: Context) =>
   return json({ drill: await updateDrill(viewer, id, input) });
 });
 
+// DELETE moves the drill to the bin with its assignments (POST /api/drills/:id/restore within 30 days).
 export const DELETE = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
-  await deleteDrill(viewer, parseId((await params).id));
-  return json({ ok: true });
+  return json({ drill: await deleteDrill(viewer, parseId((await params).id)) });
 });

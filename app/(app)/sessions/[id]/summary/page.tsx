@@ -97,7 +97,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
                     .map((n) => (
                       <li key={n.id}>
                         <span className="font-medium text-ink">{swingName(s.id)}, {noteWhere(n, s.startS)}:</span> <span className="whitespace-pre-wrap text-ink">{n.body}</span>{' '}
-                        <span className="text-xs text-ink-muted">— {n.authorName}</span>
+                        <span className="text-sm text-ink-muted">— {n.authorName}</span>
                       </li>
                     )),
                 )}
@@ -111,7 +111,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
           ) : (
             <form method="get" className="overflow-x-auto">
               <table className="w-full text-left text-sm tabular-nums" data-testid="summary-table">
-                <thead className="border-b border-surface-line text-xs text-ink-muted">
+                <thead className="border-b border-surface-line text-sm text-ink-muted">
                   <tr>
                     <th scope="col" className="py-2 pr-3 font-medium" data-print="hide">Traces</th>
                     <th scope="col" className="py-2 pr-3 font-medium">Swing</th>
@@ -148,7 +148,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
                   })}
                 </tbody>
               </table>
-              <p className="mt-3 flex items-center gap-3 text-xs text-ink-muted" data-print="hide">
+              <p className="mt-3 flex items-center gap-3 text-sm text-ink-muted" data-print="hide">
                 <button type="submit" className={buttonClass('secondary')}>
                   Draw the ticked swings
                 </button>

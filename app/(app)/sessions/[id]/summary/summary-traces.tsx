@@ -39,7 +39,7 @@ export function SummaryTraces({ swing }: { swing: SwingView }) {
           table={false}
           idPrefix={`summary-${swing.id}`}
         />
-        <ul className="mt-2 space-y-0.5 text-xs text-ink-muted">
+        <ul className="mt-2 space-y-0.5 text-sm text-ink-muted">
           {swing.phases.map((p) => (
             <li key={p.name}>
               {phaseLabels[p.name].name}: {p.durationS == null ? '—' : `${p.durationS.toFixed(2)} s`}, mean lead {p.meanLeadPct == null ? '—' : `${p.meanLeadPct.toFixed(0)} %`}

@@ -3,7 +3,24 @@ import { db } from '@/lib/db/client';
 import { jsonColumn } from '@/lib/db/values';
 import type { LiveLabelInput, LiveSwingEvent, LiveView } from '@/lib/contracts/live';
 import { NotFoundError } from '@/lib/http';
+import type { Viewer } from '@/lib/auth/viewer';
+import { getBand, listBands } from '@/lib/bands/store';
 import type { LiveRow } from './session';
+
+const BAND_POINTS = 51;
+
+/** The newest band the viewer sees that was built from this player's own swings only: its lead % curve, ~51 points. */
+async function playerBand(viewer: Viewer, athleteId: number): Promise<LiveView['band']> {
+  for (const b of (await listBands(viewer)).slice(0, 20)) {
+    const full = await getBand(viewer, b.id);
+    const owners = await db('swings as s').join('recordings as r', 'r.id', 's.recording_id').whereIn('s.id', full.swingIds).distinct('r.athlete_id').pluck('r.athlete_id');
+    if (owners.length !== 1 || Number(owners[0]) !== athleteId) continue;
+    const c = full.curves.leadPct;
+    const pick = (a: number[]) => Array.from({ length: BAND_POINTS }, (_, i) => a[Math.round((i * (a.length - 1)) / (BAND_POINTS - 1))]).map((v) => (Number.isFinite(v) ? Math.round(v * 10) / 10 : 50));
+    return { name: full.name, mean: pick(c.mean), lower: pick(c.lower), upper: pick(c.upper) };
+  }
+  return null;
+}
 
 type SwingRow = { id: number; number: number; result: unknown; club: string | null; strike: string | null; not_swing: number | boolean; swing_id: number | null };
 
@@ -13,7 +30,7 @@ function toSwing(r: SwingRow): LiveSwingEvent {
 }
 
 /** GET /api/live/:id: what the live page shows on first paint and after a reload. */
-export async function liveView(row: LiveRow): Promise<LiveView> {
+export async function liveView(viewer: Viewer, row: LiveRow): Promise<LiveView> {
   const athlete = await db('athletes').where({ id: row.athlete_id }).first('display_name');
   const swings = (await db('live_swings').where({ live_session_id: row.id }).orderBy('number')) as SwingRow[];
   return {
@@ -25,7 +42,7 @@ export async function liveView(row: LiveRow): Promise<LiveView> {
     drillFocus: row.drill_focus,
     recordingId: row.recording_id === null ? null : Number(row.recording_id),
     swings: swings.map(toSwing),
-    band: null,
+    band: await playerBand(viewer, Number(row.athlete_id)),
   };
 }
 

@@ -10,5 +10,5 @@ type Context = { params: Promise<{ id: string }> };
 
 export const GET = withErrors(async (_request: Request, { params }: Context) => {
   const viewer = await requireRole('coach');
-  return json(await liveView(await requireLive(viewer, parseId((await params).id), 'read')));
+  return json(await liveView(viewer, await requireLive(viewer, parseId((await params).id), 'read')));
 });

@@ -13,6 +13,8 @@ export interface BridgeOptions {
   log?: (line: string) => void;
   /** called after each stored chunk with the wall time it was acknowledged (ms) and the chunk's last row time */
   onAck?: (seq: number, lastS: number, ackedAt: number) => void;
+  /** called just before each chunk's first attempt, with the chunk's index and the wall time (ms) */
+  onSend?: (index: number, sentAt: number) => void;
 }
 
 export interface BridgeResult {
@@ -60,6 +62,7 @@ export async function replay(csv: string, o: BridgeOptions): Promise<BridgeResul
   for (let k = 0; k < chunks.length; k++) {
     const due = t0 + ((lastTimes[k] - s0) * 1000) / o.speed - Date.now();
     if (due > 0) await sleep(due);
+    o.onSend?.(k, Date.now());
     const give = Date.now() + (o.retryForMs ?? 120_000);
     let backoff = 100;
     for (;;) {

@@ -4,8 +4,8 @@ export const LIVE_STATUSES = ['active', 'ended'] as const;
 
 // A live lesson: the bridge streams the recording in chunks while the student is on the mat. token_hash is the
 // SHA-256 of the bearer token for ingest into this live session only (the token itself is never stored);
-// preamble is the stream's metadata lines and header row (from chunk 0); level is the latest weight split (about
-// 10 times a second) for the event streams of any instance. Ending makes a normal recording (recording_id).
+// preamble is the stream's metadata lines and header row (from chunk 0). Ending makes a normal recording
+// (recording_id).
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('live_sessions', (table) => {
     table.charset('utf8mb4');
@@ -19,7 +19,6 @@ export async function up(knex: Knex): Promise<void> {
     table.text('preamble').nullable();
     table.integer('preamble_lines').unsigned().nullable();
     table.string('drill_focus', 200).nullable();
-    table.json('level').nullable();
     table.datetime('last_chunk_at', { precision: 3 }).nullable();
     table.string('end_reason', 20).nullable();
     table.datetime('ended_at', { precision: 3 }).nullable();

@@ -86,4 +86,4 @@ export const liveViewSchema = z.object({
 });
 export type LiveView = z.infer<typeof liveViewSchema>;
 export const liveSwingResponseSchema = z.object({ swing: liveSwingSchema });
-export const liveDemoBridgeSchema = z.object({ recordingId: z.number(), filename: z.string() });
+export const liveDemoBridgeSchema = z.object({ recordingId: z.number().nullable(), filename: z.string() });

@@ -53,7 +53,7 @@ export function liveEventStream(liveId: number, afterId: number, signal: AbortSi
             send(`id: ${cursor}\nevent: ${r.kind}\ndata: ${JSON.stringify(payload)}\n\n`);
             if (r.kind === 'status' && payload?.status === 'ended') endedAt ??= Date.now();
           }
-          const s = await db('live_sessions').where({ id: liveId }).first('level', 'status');
+          const s = await db('live_sessions as l').leftJoin('live_leases as k', 'k.live_session_id', 'l.id').where('l.id', liveId).first('k.level', 'l.status');
           const level = s?.level ? JSON.stringify(jsonColumn(s.level)) : '';
           if (level && level !== lastLevel) {
             lastLevel = level;

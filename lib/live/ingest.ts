@@ -51,7 +51,12 @@ export async function acceptChunk(row: LiveRow, seq: number, text: string): Prom
   const maxBefore = await db('live_chunks').where({ live_session_id: liveId }).max({ m: 'seq' }).first();
   const expected = maxBefore?.m === null || maxBefore?.m === undefined ? 0 : Number(maxBefore.m) + 1;
   try {
+    // the session row first (its exclusive lock orders concurrent chunks), then the chunk (whose foreign key would
+    // otherwise take a shared lock on the same row first: two chunks at once deadlocked)
     await db.transaction(async (trx) => {
+      const patch: Record<string, unknown> = { last_chunk_at: trx.raw('CURRENT_TIMESTAMP(3)') };
+      if (checked.preamble !== null) Object.assign(patch, { preamble: checked.preamble, preamble_lines: checked.preambleLines });
+      await trx('live_sessions').where({ id: liveId }).update(patch);
       await trx('live_chunks').insert({
         live_session_id: liveId,
         seq,
@@ -60,9 +65,6 @@ export async function acceptChunk(row: LiveRow, seq: number, text: string): Prom
         first_time_s: checked.firstS,
         last_time_s: checked.lastS,
       });
-      const patch: Record<string, unknown> = { last_chunk_at: trx.raw('CURRENT_TIMESTAMP(3)') };
-      if (checked.preamble !== null) Object.assign(patch, { preamble: checked.preamble, preamble_lines: checked.preambleLines });
-      await trx('live_sessions').where({ id: liveId }).update(patch);
     });
   } catch (error) {
     if ((error as { code?: string })?.code === 'ER_DUP_ENTRY') return { seq, duplicate: true };

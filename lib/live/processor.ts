@@ -187,7 +187,7 @@ async function step(liveId: number): Promise<void> {
     const level = chunkLevel(h.header, lastBody, h.layout, h.handedness, h.units);
     if (level) {
       h.lastLevelAt = Date.now();
-      await db('live_sessions').where({ id: liveId }).update({ level: JSON.stringify({ ...level, t: r3(level.t - (h.startS ?? 0)) }) });
+      await db('live_leases').where({ live_session_id: liveId, owner: INSTANCE_ID }).update({ level: JSON.stringify({ ...level, t: r3(level.t - (h.startS ?? 0)) }) });
     }
   }
 }

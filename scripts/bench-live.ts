@@ -8,7 +8,9 @@
 // - the server's CPU per session: (user + system CPU of the next-server process tree over the run) / wall time / N.
 // The target from the issue: p95 <= 1 s. The most sessions one instance holds is the largest N that meets it.
 import { readFileSync, readdirSync } from 'node:fs';
+import { LIVE_DEFAULTS } from '../lib/live/finder';
 import { analyzeRecording } from '../lib/signal/analyze';
+import { DETECTION_DEFAULTS } from '../lib/signal/finder/params';
 import { parseRecording } from '../lib/signal/read';
 import { DISTRACTORS, generateSession } from '../lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD } from '../tests/http/support/env';
@@ -65,7 +67,7 @@ async function oneSession(coach: HttpSession, base: string): Promise<number[]> {
   const { id, token } = start.body as { id: number; token: string };
   const sent: number[] = [];
   const got: { number: number; finish: number; at: number }[] = [];
-  const expected = finishes.filter((f) => f + 0.8 <= lastTimes[lastTimes.length - 1]).length;
+  const expected = finishes.filter((f) => f + DETECTION_DEFAULTS.settleHoldS + LIVE_DEFAULTS.padAfterS <= lastTimes[lastTimes.length - 1]).length;
   const events = readSse(coach, `/api/live/${id}/events`, {
     timeoutMs: (lastTimes[lastTimes.length - 1] - lastTimes[0]) * 1000 + 30_000,
     stop: () => got.length >= expected,

@@ -17,9 +17,10 @@ export const LIVE_DEFAULTS = {
    *  transient of a 4th-order 10 Hz Butterworth at 100 Hz has died out well within this (the offline filter pads
    *  too); the equality test against the offline analysis is the check */
   padBeforeS: 1.5,
-  /** after the finish hold: the least that keeps the finish's values within the issue's 0.5 points (equality test),
-   *  because it is waited for after every swing */
-  padAfterS: 0.5,
+  /** after the finish hold, waited for after every swing, so kept small: the finder itself only settles a finish
+   *  once its hold is in the buffer, and on the equality test's sessions 0 s already gave identical events and
+   *  values; 0.1 s is a margin for the zero-lag filter's end effect at the finish */
+  padAfterS: 0.1,
 } as const;
 
 export interface LiveFinderConfig {

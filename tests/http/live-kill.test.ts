@@ -5,6 +5,8 @@ import { seedDemo } from '@/db/demo/seed-demo';
 import { knexConfig } from '@/knexfile';
 import { analyzeRecording } from '@/lib/signal/analyze';
 import { parseRecording } from '@/lib/signal/read';
+import { DETECTION_DEFAULTS } from '@/lib/signal/finder/params';
+import { LIVE_DEFAULTS } from '@/lib/live/finder';
 import { DISTRACTORS, generateSession } from '@/lib/signal/synthetic';
 import { replay, splitRecording } from '@/scripts/lib/live-bridge';
 import { findFreePort } from '@/scripts/lib/free-port';
@@ -20,6 +22,8 @@ import { signedIn } from './support/http-session';
 // server never sees this live session.
 
 const env = e2eEnv();
+/** a swing settles live once its finish hold and the filter's padding lie inside the stream (lib/live/finder.ts) */
+const SETTLED_AFTER_S = DETECTION_DEFAULTS.settleHoldS + LIVE_DEFAULTS.padAfterS;
 const lesson = generateSession({ seed: 1818, sampleRateHz: 100, sensorsPerFoot: 8, units: 'N', handedness: 'right', stanceWidthMm: 400, swings: 4, withMarker: false, distractors: DISTRACTORS });
 const csv = lesson.csv();
 const offline = analyzeRecording(parseRecording(csv), lesson.layout).result.swings;
@@ -96,7 +100,7 @@ describe('the app server killed during a live lesson', () => {
     expect(preamble + stored.map((c: { body: string }) => c.body).join('')).toBe(csv);
 
     // the new instance takes the lease over (after it expires) and publishes every settled swing once, in order
-    const expected = offline.filter((w) => w.events.finish + 0.8 <= lastTimes[lastTimes.length - 1]);
+    const expected = offline.filter((w) => w.events.finish + SETTLED_AFTER_S <= lastTimes[lastTimes.length - 1]);
     const deadline = Date.now() + 60_000;
     let rows: { number: number; impact_s: number }[] = [];
     while (Date.now() < deadline) {

@@ -1,6 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { analyzeRecording } from '@/lib/signal/analyze';
 import { parseRecording } from '@/lib/signal/read';
+import { DETECTION_DEFAULTS } from '@/lib/signal/finder/params';
+import { LIVE_DEFAULTS } from '@/lib/live/finder';
 import { DISTRACTORS, generateSession, PRE_SHOTS } from '@/lib/signal/synthetic';
 import { EVENT_NAMES } from '@/lib/signal/types';
 import { errorResponseSchema } from '@/lib/contracts/errors';
@@ -18,6 +20,8 @@ import { readSse, type SseEvent } from './support/sse';
 // role matrix of the event stream and the ingest token.
 
 const env = e2eEnv();
+/** a swing settles live once its finish hold and the filter's padding lie inside the stream (lib/live/finder.ts) */
+const SETTLED_AFTER_S = DETECTION_DEFAULTS.settleHoldS + LIVE_DEFAULTS.padAfterS;
 const ATHLETE = 1; // coach@'s student Ada Fenwick (db/demo/scenario.ts); student@ is her account
 let coach: HttpSession;
 let coach2: HttpSession;
@@ -66,9 +70,9 @@ describe('live lesson', () => {
   it('publishes every swing once, in order, equal to the offline analysis; repeats and out-of-order chunks change nothing', { timeout: 240_000 }, async () => {
     const live = await start(coach);
     const { chunks } = splitRecording(csv);
-    // the swings that settle before the stream ends (finish hold 0.3 s + 0.5 s padding; lib/live/finder.ts)
+    // the swings that settle before the stream ends (finish hold + padding; lib/live/finder.ts)
     const lastS = Number(csv.trimEnd().split('\n').pop()!.split(',')[0]);
-    const expected = offline.swings.filter((w) => w.events.finish + 0.8 <= lastS);
+    const expected = offline.swings.filter((w) => w.events.finish + SETTLED_AFTER_S <= lastS);
     expect(expected.length).toBeGreaterThanOrEqual(3);
 
     const events = readSse(coach, `/api/live/${live.id}/events`, {

@@ -27,7 +27,7 @@ export function SwingTrace({ swing, band }: { swing: LiveSwingEvent; band: LiveV
         {(['address', 'top', 'impact', 'finish'] as const).map((e) => (
           <g key={e}>
             <line x1={x(swing.events[e])} x2={x(swing.events[e])} y1={0} y2={H} className="stroke-ink-muted" strokeWidth={1} />
-            <text x={x(swing.events[e]) + 2} y={H + 16} className="fill-ink text-[12px]">
+            <text x={x(swing.events[e]) + (e === 'finish' ? -2 : 2)} y={H + 16} textAnchor={e === 'finish' ? 'end' : 'start'} className="fill-ink text-[12px]">
               {e}
             </text>
           </g>

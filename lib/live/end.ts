@@ -63,6 +63,13 @@ export async function endLive(liveId: number, reason: 'coach' | 'idle'): Promise
   const outcome = await db.transaction(async (trx) => {
     const row = await trx('live_sessions').where({ id: liveId }).forUpdate().first('status', 'recording_id');
     if (row.status === 'ended') return { recordingId: Number(row.recording_id), fresh: false };
+    // the same bytes already in this session (a demo replayed twice): that recording is the lesson's, as on upload
+    const same = await trx('recordings').where({ session_id: live.session_id, sha256 }).first('id');
+    if (same) {
+      await trx('recordings').where({ id: same.id }).update({ binned_at: null });
+      await trx('live_sessions').where({ id: liveId }).update({ status: 'ended', end_reason: reason, ended_at: trx.raw('CURRENT_TIMESTAMP(3)'), recording_id: same.id });
+      return { recordingId: Number(same.id), fresh: false, ended: true };
+    }
     const [recordingId] = await trx('recordings').insert({
       athlete_id: live.athlete_id,
       session_id: live.session_id,
@@ -80,6 +87,10 @@ export async function endLive(liveId: number, reason: 'coach' | 'idle'): Promise
   });
   if (!outcome.fresh) {
     await store.remove(key).catch(() => undefined);
+    if ('ended' in outcome) {
+      await addLiveEvent(liveId, 'status', { status: 'ended', message: 'Lesson ended; the same recording was already in this session.', recordingId: outcome.recordingId });
+      await releaseLive(liveId);
+    }
     return { recordingId: outcome.recordingId };
   }
   await addLiveEvent(liveId, 'status', {

@@ -25,14 +25,17 @@ export function liveEventStream(liveId: number, afterId: number, signal: AbortSi
   let lastWrite = Date.now();
   let endedAt: number | null = null;
   let timer: NodeJS.Timeout | null = null;
+  let closed = false;
   return new ReadableStream<Uint8Array>({
     start(controller) {
       const send = (text: string) => {
+        if (closed || signal.aborted) return;
         controller.enqueue(enc.encode(text));
         lastWrite = Date.now();
       };
       send('retry: 1000\n\n');
       const close = () => {
+        closed = true;
         if (timer) clearTimeout(timer);
         timer = null;
         try {
@@ -44,7 +47,7 @@ export function liveEventStream(liveId: number, afterId: number, signal: AbortSi
       signal.addEventListener('abort', close);
       const poll = async () => {
         timer = null;
-        if (signal.aborted) return;
+        if (signal.aborted || closed) return;
         try {
           const rows = await db('live_events').where({ live_session_id: liveId }).andWhere('id', '>', cursor).orderBy('id').limit(200).select('id', 'kind', 'payload');
           for (const r of rows) {
@@ -68,11 +71,12 @@ export function liveEventStream(liveId: number, afterId: number, signal: AbortSi
         } catch (error) {
           console.error(`[stanceline live] event stream ${liveId}:`, error);
         }
-        if (!signal.aborted) timer = setTimeout(() => void poll(), POLL_MS);
+        if (!signal.aborted && !closed) timer = setTimeout(() => void poll(), POLL_MS);
       };
       void poll();
     },
     cancel() {
+      closed = true;
       if (timer) clearTimeout(timer);
       timer = null;
     },

@@ -9,5 +9,9 @@ export async function register(): Promise<void> {
     startAppWorker();
     const { startSpoolSweeper } = await import('./lib/recordings/upload');
     startSpoolSweeper();
+    // live lessons: idle ones end, buffers of a dead instance are taken over, ended ones reconciled (lib/live/end.ts)
+    const { startLiveSweeper } = await import('./lib/live/end');
+    const { kickLive } = await import('./lib/live/processor');
+    startLiveSweeper(kickLive);
   }
 }

@@ -42,8 +42,19 @@ export class PayloadTooLargeError extends HttpError {
   }
 }
 
+/** Bad input with a place in a stream or file: the body carries the 1-based line and column besides the message. */
+export class BadInputAtError extends HttpError {
+  constructor(
+    message: string,
+    readonly line: number | null,
+    readonly column: number | null,
+  ) {
+    super(400, 'bad_input', message);
+  }
+}
+
 export type ErrorBody = {
-  error: { code: string; message: string; fieldErrors?: Record<string, string[]> };
+  error: { code: string; message: string; fieldErrors?: Record<string, string[]>; line?: number | null; column?: number | null };
 };
 
 /** Field path "a.b" -> messages, for showing server-side validation errors on form fields. */
@@ -73,6 +84,9 @@ export function toErrorResponse(error: unknown): Response {
       },
       422,
     );
+  }
+  if (error instanceof BadInputAtError) {
+    return json<ErrorBody>({ error: { code: error.code, message: error.message, line: error.line, column: error.column } }, error.status);
   }
   if (error instanceof HttpError) {
     return json<ErrorBody>({ error: { code: error.code, message: error.message } }, error.status);

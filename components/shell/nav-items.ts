@@ -10,6 +10,7 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
     { href: '/roster', label: 'Roster' },
     { href: '/athletes/new', label: 'Add athlete' },
     { href: '/upload', label: 'Upload' },
+    { href: '/live', label: 'Live' },
     { href: '/targets', label: 'Targets' },
     { href: '/bands', label: 'Bands' },
     { href: '/drills', label: 'Drills' },

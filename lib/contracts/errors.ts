@@ -6,6 +6,9 @@ export const errorResponseSchema = z.object({
     code: z.string(),
     message: z.string(),
     fieldErrors: z.record(z.string(), z.array(z.string())).optional(),
+    /** 1-based place of bad input in a stream (live samples), counted from the stream's first line */
+    line: z.number().nullable().optional(),
+    column: z.number().nullable().optional(),
   }),
 });
 export type ErrorResponse = z.infer<typeof errorResponseSchema>;

@@ -47,6 +47,12 @@ const APP_TABLES = [
   'shares',
   'mail_log',
   'rate_limits',
+  // live lessons: the stream, its events for the coach's screen, the swings found live, the buffer's lease
+  'live_sessions',
+  'live_chunks',
+  'live_events',
+  'live_swings',
+  'live_leases',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

@@ -203,6 +203,18 @@ export const A11Y_CHECKS: A11yCheck[] = [
       await page.getByTestId('annotation-error').or(page.getByTestId('annotation-form').getByRole('alert')).first().waitFor();
     },
   },
+  { name: 'coach live lesson start', route: '/live', as: 'coach', path: () => '/live' },
+  {
+    // a new live session for the first student on the roster; the screen waits for the insoles
+    name: 'coach live lesson screen',
+    route: '/live/[id]',
+    as: 'coach',
+    path: () => '/live',
+    act: async (page) => {
+      await page.getByRole('button', { name: 'Start live lesson' }).click();
+      await page.getByTestId('live-screen').waitFor({ timeout: 30_000 });
+    },
+  },
   { name: 'coach sign-out', route: '/sign-out', as: 'coach', path: () => '/sign-out' },
   { name: 'coach page not found', route: '(not found)', as: 'coach', path: () => '/no-such-page' },
 

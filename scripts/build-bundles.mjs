@@ -19,7 +19,7 @@ export const BUNDLES = {
   'job-thread': {
     entry: 'lib/jobs/thread-entry.ts',
     out: 'job-thread.mjs',
-    inputs: ['lib/jobs/thread-entry.ts', 'lib/jobs/tasks', 'lib/recordings/options.ts', 'lib/recordings/stored-text.ts'],
+    inputs: ['lib/jobs/thread-entry.ts', 'lib/jobs/tasks', 'lib/recordings/options.ts', 'lib/recordings/stored-text.ts', 'lib/live/analyze-window.ts'],
   },
 };
 

@@ -1,8 +1,9 @@
-// The one place a live analysis step runs. Today it runs inline; this is the seam where it is routed through the
-// worker-thread pool (lib/jobs/pool.ts, issue 13) at merge: analyzeWindow's input and output are structured-clone
-// friendly, so `pool.run('analyze-window', input)` replaces the direct call without other changes.
-import { analyzeWindow, type AnalyzeWindowInput, type AnalyzeWindowOutput } from './analyze-window';
+// The one place a live analysis step runs: on the job pool's worker threads (lib/jobs/pool.ts), like the analysis of
+// an upload, so live processing never stalls other requests. analyzeWindow's input and output are structured-clone
+// friendly; tests that need no threads call analyzeWindow itself.
+import { runTask } from '@/lib/jobs/pool';
+import type { AnalyzeWindowInput, AnalyzeWindowOutput } from './analyze-window';
 
 export async function runAnalyzeWindow(input: AnalyzeWindowInput): Promise<AnalyzeWindowOutput> {
-  return analyzeWindow(input);
+  return runTask('analyze-window', input);
 }

@@ -23,6 +23,7 @@ describe('lib/env parseEnv', () => {
       SMTP_SECURE: 'false',
       MAIL_DIR: '.data/mail',
       DEMO_MODE: 'false',
+      RESEARCH_ADULT_AGE: 18,
     });
   });
 
@@ -32,7 +33,7 @@ describe('lib/env parseEnv', () => {
     expect(() => parseEnv({ DATABASE_URL: url, SMTP_HOST: 'relay.example.org', SMTP_USER: 'app' })).toThrow(/SMTP_PASSWORD: SMTP_USER and SMTP_PASSWORD are set together/);
     expect(() => parseEnv({ DATABASE_URL: url, MAIL_FROM: 'not an address' })).toThrow(/MAIL_FROM/);
     expect(parseEnv({ DATABASE_URL: url, MAIL_FROM: 'Harrow Vale <desk@example.org>' }).MAIL_FROM).toBe('Harrow Vale <desk@example.org>');
-    const production = { DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'x'.repeat(32), SMTP_HOST: 'relay.example.org' };
+    const production = { DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'x'.repeat(32), RESEARCH_CODE_SECRET: 'r'.repeat(32), SMTP_HOST: 'relay.example.org' };
     expect(() => parseEnv(production)).toThrow(/MAIL_FROM: is required with SMTP_HOST in production/);
     expect(parseEnv({ ...production, MAIL_FROM: 'desk@example.org' }).MAIL_FROM).toBe('desk@example.org');
     expect(() => parseEnv({ DATABASE_URL: url, DEMO_MODE: 'on' })).toThrow(/DEMO_MODE: must be true or false/);
@@ -69,7 +70,8 @@ describe('lib/env parseEnv', () => {
 
   it('requires NEXTAUTH_SECRET in production', () => {
     expect(() => parseEnv({ DATABASE_URL: url, NODE_ENV: 'production' })).toThrow(/NEXTAUTH_SECRET: is required in production/);
-    expect(parseEnv({ DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'a'.repeat(64) }).NODE_ENV).toBe('production');
+    expect(parseEnv({ DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'a'.repeat(64), RESEARCH_CODE_SECRET: 'b'.repeat(64) }).NODE_ENV).toBe('production');
+    expect(() => parseEnv({ DATABASE_URL: url, NODE_ENV: 'production', NEXTAUTH_SECRET: 'a'.repeat(64) })).toThrow(/RESEARCH_CODE_SECRET: is required in production/);
   });
 });
 

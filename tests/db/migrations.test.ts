@@ -31,28 +31,28 @@ const APP_TABLES = [
   // the swing finder's rejected candidates and the coach's promotions
   'recording_candidates',
   'candidate_promotions',
-  // research: consent history, personal API tokens, the export audit
-  'consent_records',
-  'api_tokens',
-  'export_audit',
   // the stored viewer payload of each swing (GET /api/swings/:id)
   'swing_payloads',
-  // launch-monitor shots: saved shot profiles, imports (raw file kept) and shots paired with swings
-  'shot_profiles',
-  'shot_imports',
-  'shots',
   // accounts by e-mail: invitations, password resets, shares, the notification log, the reset rate limiter's counters
   'invitations',
   'password_resets',
   'shares',
   'mail_log',
   'rate_limits',
+  // research: consent history, personal API tokens, the export audit
+  'consent_records',
+  'api_tokens',
+  'export_audit',
   // live lessons: the stream, its events for the coach's screen, the swings found live, the buffer's lease
   'live_sessions',
   'live_chunks',
   'live_events',
   'live_swings',
   'live_leases',
+  // launch-monitor shots: saved shot profiles, imports (raw file kept) and shots paired with swings
+  'shot_profiles',
+  'shot_imports',
+  'shots',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].
@@ -64,15 +64,15 @@ const ALTERATIONS: [string, string, string][] = [
   // the bin: sessions and recordings deleted by a coach wait 30 days before the sweep removes them
   ['add_practice_sessions_binned_at', 'practice_sessions', 'binned_at'],
   ['add_recordings_binned_at', 'recordings', 'binned_at'],
-  // the units a user reads shot values in
-  ['add_users_shot_units', 'users', 'shot_units'],
-  // a student's opt-out of drill reminder mails
-  ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
   // archived players (kept with their data) and the bin of drills, bands and drill assignments
   ['add_athletes_archived_at', 'athletes', 'archived_at'],
   ['add_drills_binned_at', 'drills', 'binned_at'],
   ['add_bands_binned_at', 'bands', 'binned_at'],
   ['add_drill_assignments_binned_at', 'drill_assignments', 'binned_at'],
+  // a student's opt-out of drill reminder mails
+  ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
+  // the units a user reads shot values in
+  ['add_users_shot_units', 'users', 'shot_units'],
 ];
 
 let scratch: ScratchDatabase;

@@ -3,9 +3,11 @@
 // database or store handles) to a structured-clonable result. To add one: write lib/jobs/tasks/<name>.ts, add it
 // here, and list the file in scripts/build-bundles.mjs (the `job-thread` bundle's inputs). DEVELOPERS.md "Job pool".
 import { analyzeRecordingTask } from './analyze-recording';
+import { analyzeWindowTask } from './analyze-window';
 
 export const TASKS = {
   'analyze-recording': analyzeRecordingTask,
+  'analyze-window': analyzeWindowTask,
 } as const;
 
 export type TaskName = keyof typeof TASKS;

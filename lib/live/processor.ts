@@ -57,7 +57,10 @@ async function takeLease(liveId: number): Promise<boolean> {
     await db('live_leases').insert({ live_session_id: liveId, owner: INSTANCE_ID, expires_at: db.raw(`CURRENT_TIMESTAMP(3) + INTERVAL ${LEASE_S} SECOND`) });
     return true;
   } catch (error) {
-    if ((error as { code?: string })?.code === 'ER_DUP_ENTRY') return false;
+    const code = (error as { code?: string })?.code;
+    if (code === 'ER_DUP_ENTRY') return false;
+    // The live session is gone (deleted with its player or session): nothing to hold any more.
+    if (code === 'ER_NO_REFERENCED_ROW_2' || code === 'ER_NO_REFERENCED_ROW') return false;
     throw error;
   }
 }

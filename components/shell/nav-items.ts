@@ -8,7 +8,6 @@ export const navItemsByRole: Record<Role, NavItem[]> = {
   coach: [
     { href: '/', label: 'Overview' },
     { href: '/roster', label: 'Roster' },
-    { href: '/athletes/new', label: 'Add athlete' },
     { href: '/upload', label: 'Upload' },
     { href: '/live', label: 'Live' },
     { href: '/targets', label: 'Targets' },

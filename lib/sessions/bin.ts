@@ -23,6 +23,11 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
       .forUpdate()
       .select('id', 'storage_key');
     keys.push(...recordings.map((r) => String(r.storage_key)));
+    // their videos: the original, the playable mp4 and the poster (rows cascade with the recording)
+    if (recordings.length > 0) {
+      const videos = await trx('videos').whereIn('recording_id', recordings.map((r) => Number(r.id))).select('original_key', 'playable_key', 'poster_key');
+      for (const v of videos) for (const k of [v.original_key, v.playable_key, v.poster_key]) if (k) keys.push(String(k));
+    }
     // shot logs: those of swept sessions (refused files included) and those binned on their own (lib/shots)
     const shotImports = await trx('shot_imports')
       .where((q) => {

@@ -7,8 +7,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { detectOnsets } from '@/lib/signal/audio-onsets';
-import { VideoInputError, probeVideo } from '@/lib/video/ffmpeg';
-import { processVideoFile } from '@/lib/video/process';
+import { VideoInputError, probeVideo } from '@/lib/videos/ffmpeg';
+import { processVideoFile } from '@/lib/videos/process';
 
 const dir = mkdtempSync(join(tmpdir(), 'stanceline-video-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

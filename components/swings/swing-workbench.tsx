@@ -186,7 +186,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
         />
       )}
       {usable ? (
-        <div className="grid gap-3 xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <div className="grid gap-3 lg:grid-cols-[minmax(0,1fr)_17rem] xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <SwingTraceViewer
           key={viewerKey}
           series={series}

@@ -5,8 +5,8 @@
 // drawn over a corner; for the coach "This is impact" and ±1 frame nudges of the sync.
 import { useCallback, useEffect, useRef, useState } from 'react';
 import useSWR from 'swr';
-import { videoListSchema, videoSchema, type VideoList } from '@/lib/contracts/videos';
-import { fetchJson, sendJson } from '@/lib/fetcher';
+import { videoBinnedSchema, videoListSchema, videoSchema, videoUploadedSchema, type VideoList } from '@/lib/contracts/videos';
+import { deleteJson, fetchJson, sendJson } from '@/lib/fetcher';
 import type { CursorStore } from '@/components/swings/cursor-store';
 import { useCursorTime } from '@/components/swings/cursor-store';
 
@@ -41,12 +41,13 @@ export interface SwingVideosProps {
 export function SwingVideos(p: SwingVideosProps) {
   const { data, error, mutate } = useSWR(`/api/recordings/${p.recordingId}/videos`, fetchVideos, { revalidateOnFocus: false, refreshInterval: (d) => (d?.videos.some((v) => v.status === 'queued' || v.status === 'processing') ? 3000 : 0) });
   if (error) return <p role="alert" className="text-sm text-danger">Could not load the videos.</p>;
-  if (!data || data.videos.length === 0) return null;
+  if (!data) return null;
+  if (data.videos.length === 0) return p.canEdit ? <VideoUpload recordingId={p.recordingId} onDone={() => void mutate()} /> : null;
   const playable = data.videos.filter((v) => v.status === 'ready' && v.streamUrl).slice(0, 2);
   const waiting = data.videos.filter((v) => v.status === 'queued' || v.status === 'processing');
   const failed = data.videos.filter((v) => v.status === 'failed');
   return (
-    <section aria-label="Video" className="space-y-2" data-testid="swing-videos">
+    <section aria-label="Video" className="space-y-2 self-start lg:sticky lg:top-2" data-testid="swing-videos">
       {waiting.length > 0 && <p className="text-sm text-ink-muted" role="status">Preparing {waiting.length} video(s) for playback…</p>}
       {failed.map((v) => (
         <p key={v.id} className="text-sm text-danger">
@@ -54,6 +55,7 @@ export function SwingVideos(p: SwingVideosProps) {
         </p>
       ))}
       {playable.length > 0 && <Players items={playable} {...p} onSynced={() => void mutate()} />}
+      {p.canEdit && <VideoUpload recordingId={p.recordingId} onDone={() => void mutate()} />}
     </section>
   );
 }
@@ -197,6 +199,7 @@ function Players({ items, onSynced, ...p }: SwingVideosProps & { items: Item[]; 
                 </span>
               </div>
             )}
+            {p.canEdit && <RemoveVideo id={item.id} filename={item.filename} onDone={onSynced} />}
             <figcaption className="px-2 py-1 text-sm text-white">
               {item.filename}
               {item.offsetS === null ? ' · not synced yet' : item.syncSource === 'audio' ? ' · synced by the impact sound' : ' · synced by hand'}
@@ -247,5 +250,57 @@ function Players({ items, onSynced, ...p }: SwingVideosProps & { items: Item[]; 
         {status}
       </p>
     </div>
+  );
+}
+
+/** Adds videos of this recording's lesson (mp4, mov, webm). Film minors only with a parent's or guardian's consent. */
+function VideoUpload({ recordingId, onDone }: { recordingId: number; onDone: () => void }) {
+  const [message, setMessage] = useState('');
+  const [busy, setBusy] = useState(false);
+  const send = async (files: FileList | null) => {
+    if (!files || files.length === 0) return;
+    const form = new FormData();
+    for (const f of Array.from(files)) form.append('file', f, f.name);
+    setBusy(true);
+    setMessage('Uploading…');
+    try {
+      const res = await fetch(`/api/recordings/${recordingId}/videos`, { method: 'POST', body: form, credentials: 'same-origin' });
+      const body: unknown = await res.json();
+      if (res.status !== 202) {
+        setMessage((body as { error?: { message?: string } }).error?.message ?? 'The upload was refused.');
+        return;
+      }
+      setMessage(`Received ${videoUploadedSchema.parse(body).videos.length} video(s); preparing them for playback.`);
+      onDone();
+    } catch {
+      setMessage('The upload failed; check the connection and try again.');
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <div className="rounded-md border border-dashed border-surface-line p-3 text-sm">
+      <label className="flex min-h-11 flex-wrap items-center gap-2">
+        <span className="font-medium">Add a video of this lesson</span>
+        <input type="file" accept="video/mp4,video/quicktime,video/webm,.mp4,.mov,.webm" multiple disabled={busy} onChange={(e) => void send(e.target.files)} data-testid="video-upload" />
+      </label>
+      <p className="mt-1 text-ink-muted">mp4, mov or webm up to 1 GB. Film under-18s only with a parent’s or guardian’s consent and your club’s rules.</p>
+      <p role="status" aria-live="polite">
+        {message}
+      </p>
+    </div>
+  );
+}
+
+function RemoveVideo({ id, filename, onDone }: { id: number; filename: string; onDone: () => void }) {
+  const remove = async () => {
+    if (!window.confirm(`Move “${filename}” to the bin? It can be restored for 30 days.`)) return;
+    await deleteJson(`/api/videos/${id}`, videoBinnedSchema).catch(() => undefined);
+    onDone();
+  };
+  return (
+    <button type="button" className="absolute right-2 top-2 min-h-11 rounded bg-white/90 px-3 text-sm text-ink" onClick={() => void remove()} aria-label={`Delete video “${filename}”`}>
+      Delete
+    </button>
   );
 }

@@ -30,6 +30,8 @@ export async function up(knex: Knex): Promise<void> {
     table.double('offset_s').nullable();
     table.enu('sync_source', ['audio', 'manual']).nullable();
     table.string('sync_note', 300).nullable();
+    // the bin: a video a coach deleted waits BIN_DAYS days before the sweep removes it and its files
+    table.datetime('binned_at', { precision: 3 }).nullable();
     table.datetime('created_at', { precision: 3 }).notNullable().defaultTo(knex.raw('CURRENT_TIMESTAMP(3)'));
     table.index(['recording_id'], 'videos_recording_index');
     table.index(['status'], 'videos_status_index');

@@ -50,3 +50,7 @@ export const videoPatchSchema = z.union([
   z.strictObject({ offsetS: z.number().min(-86_400).max(86_400) }),
 ]);
 export type VideoPatch = z.infer<typeof videoPatchSchema>;
+
+/** DELETE /api/videos/:id: the video is in the bin until restorableUntil (YYYY-MM-DD, UTC); then the sweep removes it. */
+export const videoBinnedSchema = z.strictObject({ id: z.number().int(), binnedAt: z.string(), restorableUntil: z.string().nullable() });
+export type VideoBinned = z.infer<typeof videoBinnedSchema>;

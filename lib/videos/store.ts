@@ -1,7 +1,9 @@
 import 'server-only';
 // The videos table: views for the API, the list of a recording, sync updates.
 import { ZodError } from 'zod';
-import type { VideoList, VideoPatch, VideoView } from '@/lib/contracts/videos';
+import type { VideoBinned, VideoList, VideoPatch, VideoView } from '@/lib/contracts/videos';
+import { BIN_DAYS } from '@/lib/contracts/sessions';
+import { restorableUntil, withinBin } from '@/lib/sessions/store';
 import { db } from '@/lib/db/client';
 import { ConflictError, NotFoundError } from '@/lib/http';
 
@@ -24,8 +26,10 @@ export type VideoRow = {
 
 const COLUMNS = ['id', 'recording_id', 'filename', 'status', 'error', 'fps', 'duration_s', 'offset_s', 'sync_source', 'sync_note', 'playable_key', 'poster_key', 'playable_bytes', 'original_key'];
 
-export async function videoRow(id: number): Promise<VideoRow | undefined> {
-  const row = await db('videos').where({ id }).first(COLUMNS);
+/** A video row; one in the bin only with `binned: true` (the restore route), like recordings. */
+export async function videoRow(id: number, opts: { binned?: boolean } = {}): Promise<VideoRow | undefined> {
+  const q = db('videos').where({ id });
+  const row = await (opts.binned ? q.whereNotNull('binned_at') : q.whereNull('binned_at')).first(COLUMNS);
   return row ? normalise(row) : undefined;
 }
 
@@ -47,7 +51,7 @@ export function toVideoView(row: VideoRow): VideoView {
 }
 
 export async function listVideos(recordingId: number): Promise<VideoList> {
-  const rows = (await db('videos').where({ recording_id: recordingId }).orderBy('id').select(COLUMNS)).map(normalise);
+  const rows = (await db('videos').where({ recording_id: recordingId }).whereNull('binned_at').orderBy('id').select(COLUMNS)).map(normalise);
   return {
     videos: rows.map((r) => ({
       ...toVideoView(r),
@@ -81,4 +85,20 @@ export async function updateSync(row: VideoRow, patch: VideoPatch): Promise<Vide
   const updated = await videoRow(row.id);
   if (!updated) throw new NotFoundError('No video with this id.');
   return toVideoView(updated);
+}
+
+/** DELETE /api/videos/:id: into the bin (restorable for BIN_DAYS days; the sweep then removes its files). */
+export async function binVideo(row: VideoRow): Promise<VideoBinned> {
+  await db('videos').where({ id: row.id }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+  const after = await db('videos').where({ id: row.id }).first('binned_at');
+  return { id: row.id, binnedAt: new Date(after.binned_at).toISOString(), restorableUntil: restorableUntil(after.binned_at) };
+}
+
+/** POST /api/videos/:id/restore within BIN_DAYS days of the delete. */
+export async function restoreVideo(row: VideoRow, now = new Date()): Promise<VideoView> {
+  const b = await db('videos').where({ id: row.id }).first('binned_at');
+  if (!b || b.binned_at === null) throw new NotFoundError('No video with this id in the bin.');
+  if (!withinBin(b.binned_at, now)) throw new ConflictError(`This video was deleted more than ${BIN_DAYS} days ago and can no longer be restored.`);
+  await db('videos').where({ id: row.id }).update({ binned_at: null });
+  return toVideoView(row);
 }

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { videoListSchema, videoSchema, videoUploadedSchema } from '@/lib/contracts/videos';
+import { videoBinnedSchema, videoListSchema, videoSchema, videoUploadedSchema } from '@/lib/contracts/videos';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { type HttpSession, signedIn } from './support/http-session';
@@ -177,6 +177,18 @@ describe('videos of a recording', () => {
     const res = await postVideo(coach, recordingId, 'notes.txt', new TextEncoder().encode('notes'));
     expect(res.status).toBe(400);
     expect(JSON.stringify(res.body)).toMatch(/mp4, mov or webm/);
+  });
+
+  it('a video can be deleted into the bin and restored', async () => {
+    const del = await coach.json(`/api/videos/${videoId}`, { method: 'DELETE' });
+    expect(del.status).toBe(200);
+    expect(videoBinnedSchema.parse(del.body)).toEqual(del.body);
+    expect((await coach.json(`/api/videos/${videoId}`)).status).toBe(404);
+    const list = videoListSchema.parse((await coach.json(`/api/recordings/${recordingId}/videos`)).body);
+    expect(list.videos.some((v) => v.id === videoId)).toBe(false);
+    expect((await student.json(`/api/videos/${videoId}/restore`, { method: 'POST' })).status).toBeGreaterThanOrEqual(403);
+    expect((await coach.json(`/api/videos/${videoId}/restore`, { method: 'POST' })).status).toBe(200);
+    expect((await coach.json(`/api/videos/${videoId}`)).status).toBe(200);
   });
 
   it('binning the recording takes its videos with it', async () => {

@@ -2,7 +2,7 @@ import { requireRecording } from '@/lib/auth/access';
 import { requireRole } from '@/lib/auth/roles';
 import { videoPatchSchema } from '@/lib/contracts/videos';
 import { json, NotFoundError, parseId, readJson, withErrors } from '@/lib/http';
-import { toVideoView, updateSync, videoRow } from '@/lib/videos/store';
+import { binVideo, toVideoView, updateSync, videoRow } from '@/lib/videos/store';
 
 export const dynamic = 'force-dynamic';
 
@@ -29,4 +29,12 @@ export const PATCH = withErrors(async (request: Request, { params }: Context) =>
   await requireRecording(viewer, row.recording_id, 'write');
   const patch = videoPatchSchema.parse(await readJson(request));
   return json(await updateSync(row, patch));
+});
+
+// Into the bin (POST /api/videos/:id/restore within 30 days); GET then answers 404.
+export const DELETE = withErrors(async (_request: Request, { params }: Context) => {
+  const viewer = await requireRole('coach');
+  const row = await findVideo(parseId((await params).id));
+  await requireRecording(viewer, row.recording_id, 'write');
+  return json(await binVideo(row));
 });

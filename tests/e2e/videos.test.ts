@@ -8,6 +8,7 @@ import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from '../http/support/env';
 import { signedIn, type HttpSession } from '../http/support/http-session';
 import { settled, upload } from '../http/support/recordings-http';
+import { axeViolations, describeViolations } from './support/axe';
 import { launchBrowser, screenshotFailure, screenshotPath, signInAt, type Browser } from './support/browser';
 
 // The coach in chromium: a swing whose recording has a video synced by its impact sounds (a clip made here with
@@ -104,6 +105,9 @@ describe('video beside the traces', () => {
     const t = await video.evaluate((v: HTMLVideoElement) => v.currentTime);
     expect(Math.abs(t - (topS + offset))).toBeLessThan(1 / 30);
     await page.getByTestId('video-lead-bar').waitFor();
+    // the viewer with a video: axe-core, WCAG 2 A/AA, zero violations (as tests/e2e/accessibility.test.ts)
+    const violations = await axeViolations(page);
+    expect(violations, describeViolations(violations)).toEqual([]);
     await shots('videos-top');
   });
 

@@ -209,13 +209,13 @@ function Players({ items, onSynced, ...p }: SwingVideosProps & { items: Item[]; 
       </div>
       {main.offsetS === null && main.syncNote && <p className="text-sm text-ink-muted">{main.syncNote}</p>}
       <div className="flex flex-wrap items-center gap-2" role="toolbar" aria-label="Video controls (keys: , and . step a frame, k plays)">
-        <button type="button" className={btn} onClick={() => stepFrames(-1)} aria-label="One frame back (key ,)">
+        <button type="button" className={btn} onClick={() => stepFrames(-1)} title="One frame back (key ,)">
           ◀ frame
         </button>
         <button type="button" className={btn} onClick={playPause} data-testid="video-play">
           {isPlaying ? 'Pause' : 'Play'}
         </button>
-        <button type="button" className={btn} onClick={() => stepFrames(1)} aria-label="One frame on (key .)">
+        <button type="button" className={btn} onClick={() => stepFrames(1)} title="One frame on (key .)">
           frame ▶
         </button>
         <span className="flex gap-1" role="group" aria-label="Speed">
@@ -237,10 +237,10 @@ function Players({ items, onSynced, ...p }: SwingVideosProps & { items: Item[]; 
             <button type="button" className={btn} onClick={() => void thisIsImpact()} data-testid="video-this-is-impact">
               This is impact
             </button>
-            <button type="button" className={btn} disabled={main.offsetS === null} onClick={() => void nudge(-1)} aria-label="Move the sync one frame earlier">
+            <button type="button" className={btn} disabled={main.offsetS === null} onClick={() => void nudge(-1)} title="Move the sync one frame earlier">
               −1 frame
             </button>
-            <button type="button" className={btn} disabled={main.offsetS === null} onClick={() => void nudge(1)} aria-label="Move the sync one frame later">
+            <button type="button" className={btn} disabled={main.offsetS === null} onClick={() => void nudge(1)} title="Move the sync one frame later">
               +1 frame
             </button>
           </span>

@@ -3,6 +3,7 @@
 // Ctrl-C stops Next and the local fakes; MariaDB keeps running for a fast restart (`npm run db:stop` stops it).
 import { DEMO_PASSWORD, DEMO_USERS } from '../db/demo/scenario';
 import { migrateLatest, seedDemoIfEmptyAt, seedDemoRecordingsAt } from './lib/database';
+import { ensureFfmpegInstalled } from './lib/ffmpeg';
 import { startLocalFakes } from './lib/local-fakes';
 import { mariadbConfigFromEnv, startMariadb } from './lib/mariadb';
 import { ensureNextauthSecret, ensureResearchCodeSecret } from './lib/nextauth-secret';
@@ -18,6 +19,7 @@ function parsePort(raw: string | undefined): number {
 
 async function main(): Promise<number> {
   const port = parsePort(process.env.PORT);
+  await ensureFfmpegInstalled();
   let databaseUrl = process.env.DATABASE_URL;
   if (databaseUrl) {
     console.log('Using DATABASE_URL from the environment (the project MariaDB is not started).');

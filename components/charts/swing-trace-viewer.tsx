@@ -46,6 +46,8 @@ export interface SwingTraceViewerProps {
   onEventsChange?: (next: SwingEvents) => void;
   onCursorChange?: (t: number) => void;
   initialCursorTime?: number;
+  /** a cursor time set from outside (a playing video); a new value moves the cursor without calling onCursorChange */
+  externalCursorTime?: number | null;
   initialZoom?: ZoomLevel;
   /** tick labels are seconds from this time (default: the window start) */
   timeZero?: number;
@@ -123,6 +125,11 @@ export function SwingTraceViewer(p: SwingTraceViewerProps) {
 
   // the cursor is a time, so it stays put when the zoom swaps the swing's series for the whole recording's
   const [cursorAt, setCursorAt] = useState(() => p.initialCursorTime ?? p.events.top);
+  const [seenExternal, setSeenExternal] = useState(p.externalCursorTime ?? null);
+  if ((p.externalCursorTime ?? null) !== seenExternal) {
+    setSeenExternal(p.externalCursorTime ?? null);
+    if (p.externalCursorTime != null) setCursorAt(p.externalCursorTime);
+  }
   const cursor = Math.min(hi, Math.max(lo, nearestIndex(time, cursorAt)));
   const cursorTime = time[cursor];
   const onCursorChange = p.onCursorChange;

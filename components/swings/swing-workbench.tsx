@@ -25,6 +25,8 @@ import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries, whol
 import { BandPicker } from '@/components/bands/band-picker';
 import { useBandOverlay } from '@/components/bands/band-overlay';
 import { ScorePanel } from '@/components/targets/score-panel';
+import { SwingVideos } from '@/components/videos/swing-videos';
+import { nearestIndex } from '@/lib/signal/nearest';
 
 const fetchSwing = fetchJson(swingViewResponseSchema);
 
@@ -100,6 +102,21 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
 
   const moved = useMemo(() => (pending && saved ? movedEvents(saved, pending) : {}), [pending, saved]);
   const onCursorChange = useCallback((t: number) => cursor.set(t), [cursor]);
+  // a playing video (or its frame keys and event buttons) moves the trace cursor and the shared cursor store
+  const [videoCursor, setVideoCursor] = useState<number | null>(null);
+  const onCursorFromVideo = useCallback((t: number) => {
+    cursor.set(t);
+    setVideoCursor(t);
+  }, [cursor]);
+  const leadAt = useCallback(
+    (t: number) => {
+      const n = series.time.length;
+      if (n < 2 || t < series.time[0] || t > series.time[n - 1]) return null;
+      const v = series.leadPct[nearestIndex(series.time, t)];
+      return Number.isFinite(v) ? v : null;
+    },
+    [series],
+  );
   const onEventsChange = useCallback((next: SwingEvents) => setPending(next), []);
   // a click in the overview remounts the viewer at that time (its cursor is its own state)
   const onJump = useCallback((t: number) => {
@@ -169,6 +186,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
         />
       )}
       {usable ? (
+        <div className="grid gap-3 lg:grid-cols-[minmax(0,1fr)_17rem] xl:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <SwingTraceViewer
           key={viewerKey}
           series={series}
@@ -186,6 +204,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
           onEventsChange={canEdit ? onEventsChange : undefined}
           onCursorChange={onCursorChange}
           initialCursorTime={cursor.get() ?? undefined}
+          externalCursorTime={videoCursor}
           initialZoom={jumped ? 'window' : undefined}
           timeZero={timeZero}
           actions={
@@ -195,6 +214,8 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
             </span>
           }
         />
+        {saved && <SwingVideos recordingId={swing.recording.id} swingId={swing.id} cursor={cursor} onCursorFromVideo={onCursorFromVideo} events={saved} leadAt={leadAt} canEdit={canEdit} />}
+        </div>
       ) : (
         <p className="rounded-md border border-surface-line bg-surface px-4 py-3 text-sm text-ink-muted">This swing has no stored traces to draw (it lacks an event or its series).</p>
       )}

@@ -7,6 +7,7 @@ import { sweepBin } from '@/lib/sessions/bin';
 import { defaultThreads, getTaskPool } from './pool';
 import { sendDueTomorrowReminders } from '@/lib/accounts/drill-mail';
 import { startWorker, type Worker } from './worker';
+import { startVideoWorker } from '@/lib/videos/worker';
 
 const BIN_SWEEP_EVERY_MS = 60 * 60 * 1000;
 
@@ -27,6 +28,8 @@ export function startAppWorker(): Worker | null {
     log: (message) => console.error(`[stanceline worker] ${message}`),
   });
   globalForWorker.__stancelineWorker = worker;
+  // Videos (ffmpeg child processes) have their own loop, so a long transcode never holds up a recording's analysis.
+  startVideoWorker(db, getStore(), `${worker.id}:video`, env.WORKER_POLL_MS, (m) => console.error(`[stanceline video] ${m}`));
   // The bin's sweep (sessions, recordings, drills, bands and assignments deleted more than 30 days ago) runs beside the worker, once an hour.
   const sweep = () =>
     void sweepBin(db, getStore())

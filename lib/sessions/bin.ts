@@ -23,6 +23,11 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
       .forUpdate()
       .select('id', 'storage_key');
     keys.push(...recordings.map((r) => String(r.storage_key)));
+    // their videos: the original, the playable mp4 and the poster (rows cascade with the recording)
+    if (recordings.length > 0) {
+      const videos = await trx('videos').whereIn('recording_id', recordings.map((r) => Number(r.id))).select('original_key', 'playable_key', 'poster_key');
+      for (const v of videos) for (const k of [v.original_key, v.playable_key, v.poster_key]) if (k) keys.push(String(k));
+    }
     // shot logs: those of swept sessions (refused files included) and those binned on their own (lib/shots)
     const shotImports = await trx('shot_imports')
       .where((q) => {
@@ -32,6 +37,10 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
       .forUpdate()
       .select('id', 'storage_key');
     keys.push(...shotImports.map((r) => String(r.storage_key)));
+    // videos binned on their own (those of swept recordings were collected above and cascade with them)
+    const binnedVideos = await trx('videos').whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).forUpdate().select('id', 'original_key', 'playable_key', 'poster_key');
+    for (const v of binnedVideos) for (const k of [v.original_key, v.playable_key, v.poster_key]) if (k) keys.push(String(k));
+    if (binnedVideos.length > 0) await trx('videos').whereIn('id', binnedVideos.map((v) => Number(v.id))).delete();
     if (shotImports.length > 0) await trx('shot_imports').whereIn('id', shotImports.map((r) => Number(r.id))).delete();
     if (recordings.length > 0) await trx('recordings').whereIn('id', recordings.map((r) => Number(r.id))).delete();
     if (sessions.length > 0) await trx('practice_sessions').whereIn('id', sessions).delete();

@@ -27,14 +27,14 @@ export function createLocalStore(dir: string): RawFileStore {
         await rm(localPath, { force: true });
       }
     },
-    async read(key): Promise<Readable> {
+    async read(key, range): Promise<Readable> {
       const path = pathOf(key);
       try {
         await stat(path);
       } catch {
         throw new StorageNotFoundError(key);
       }
-      return createReadStream(path, { highWaterMark: 1 << 20 });
+      return createReadStream(path, { highWaterMark: 1 << 20, ...(range ? { start: range.start, end: range.end } : {}) });
     },
     async exists(key) {
       try {

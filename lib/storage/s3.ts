@@ -76,10 +76,10 @@ export function createS3Store(config: S3StoreConfig): RawFileStore {
         }),
       );
     },
-    async read(key): Promise<Readable> {
+    async read(key, range): Promise<Readable> {
       assertSafeKey(key);
       try {
-        const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));
+        const out = await client.send(new GetObjectCommand({ Bucket, Key: key, ...(range ? { Range: `bytes=${range.start}-${range.end}` } : {}) }));
         return out.Body as Readable;
       } catch (error) {
         if (isNotFound(error)) throw new StorageNotFoundError(key);

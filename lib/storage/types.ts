@@ -6,8 +6,11 @@ export interface RawFileStore {
   readonly description: string;
   /** Moves a finished local file (a spool file of the upload) into the store under `key`. */
   putFile(key: string, localPath: string, byteSize: number): Promise<void>;
-  /** The stored bytes as a stream; throws StorageNotFoundError when nothing is stored under `key`. */
-  read(key: string): Promise<Readable>;
+  /**
+   * The stored bytes as a stream (only bytes start..end, inclusive, when a range is given: HTTP Range for videos);
+   * throws StorageNotFoundError when nothing is stored under `key`.
+   */
+  read(key: string, range?: { start: number; end: number }): Promise<Readable>;
   exists(key: string): Promise<boolean>;
   remove(key: string): Promise<void>;
 }

@@ -53,6 +53,8 @@ const APP_TABLES = [
   'shot_profiles',
   'shot_imports',
   'shots',
+  // a recording's videos: original kept, playable mp4, poster, the sync offset
+  'videos',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

@@ -53,6 +53,12 @@ const APP_TABLES = [
   'shot_profiles',
   'shot_imports',
   'shots',
+  // paid remote reviews: the coach's offer, the requests with their history, payments and refunds, handled events
+  'review_offers',
+  'reviews',
+  'review_history',
+  'review_payments',
+  'payment_events',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

@@ -321,13 +321,18 @@ export async function cancelReview(viewer: Viewer, id: number, now = new Date())
   const row = await requireReview(viewer, id);
   if (viewer.role === 'admin') throw new ForbiddenError('Only the student or the coach can cancel a request.');
   if (row.status !== 'requested' && row.status !== 'awaiting_payment') throw new ConflictError(`This review is ${row.status.replace('_', ' ')}: only an unpaid request can be cancelled.`);
-  if (row.checkout_session_id) {
-    const session = await payments().checkout.sessions.retrieve(String(row.checkout_session_id));
-    if (session.status === 'complete') throw new ConflictError('The payment has just gone through; this request can no longer be cancelled.');
-    if (session.status === 'open') await payments().checkout.sessions.expire(session.id);
-  }
+  const session = row.checkout_session_id ? await payments().checkout.sessions.retrieve(String(row.checkout_session_id)) : null;
+  if (session?.status === 'complete') throw new ConflictError('The payment has just gone through; this request can no longer be cancelled.');
+  // the move first (recorded as this user's), then the expiry: the provider's checkout.session.expired event that
+  // follows finds the review cancelled already and is ignored
   const moved = await db.transaction((trx) => moveReview(trx, id, 'cancelled', actorOf(viewer), now));
-  if (moved) await notifyStudent(id, 'cancelled');
+  if (!moved) throw new ConflictError('This request changed meanwhile (it may have been paid); reload and check it.');
+  if (session?.status === 'open') {
+    await payments()
+      .checkout.sessions.expire(session.id)
+      .catch((error: unknown) => console.error(`review ${id}: cancelled, but its checkout could not be expired:`, error instanceof Error ? error.message : error));
+  }
+  await notifyStudent(id, 'cancelled');
   return getReview(viewer, id, now);
 }
 

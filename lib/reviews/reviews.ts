@@ -259,6 +259,14 @@ export async function listReviews(viewer: Viewer, now = new Date()): Promise<Rev
   return ((await q) as ReviewRow[]).map((row) => toListItem(row, now));
 }
 
+/** The student's way back to an unpaid checkout: the provider's page while the session is still open, else null. */
+export async function openCheckoutUrl(viewer: Viewer, id: number): Promise<string | null> {
+  const row = await requireReview(viewer, id);
+  if (viewer.role !== 'student' || row.status !== 'awaiting_payment' || !row.checkout_session_id) return null;
+  const session = await payments().checkout.sessions.retrieve(String(row.checkout_session_id));
+  return session.status === 'open' ? session.url : null;
+}
+
 // ---- the coach's work -------------------------------------------------------------------------------------------
 
 async function requireOwnReview(viewer: Viewer, id: number): Promise<ReviewRow> {

@@ -10,7 +10,7 @@ import { requirePageRole } from '@/lib/auth/roles';
 import { formatMoney, REVIEW_STATUS_LABELS } from '@/lib/contracts/reviews';
 import { listDrills } from '@/lib/drills/store';
 import { idParamSchema, NotFoundError } from '@/lib/http';
-import { getReview } from '@/lib/reviews/reviews';
+import { getReview, openCheckoutUrl } from '@/lib/reviews/reviews';
 
 export const metadata: Metadata = { title: 'Remote review' };
 
@@ -26,6 +26,7 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
     throw e;
   });
   const justPaid = (await searchParams).paid === '1';
+  const payUrl = viewer.role === 'student' && review.status === 'awaiting_payment' ? await openCheckoutUrl(viewer, review.id).catch(() => null) : null;
   const drills = viewer.role === 'coach' ? (await listDrills(viewer)).map((d) => ({ id: d.id, name: d.name })) : [];
   return (
     <>
@@ -79,7 +80,7 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
             </div>
           </Card>
         )}
-        {(viewer.role === 'coach' || viewer.role === 'student') && (
+        {(viewer.role === 'coach' || (viewer.role === 'student' && (review.status === 'requested' || review.status === 'awaiting_payment'))) && (
           <Card title={viewer.role === 'coach' ? 'Your review' : 'Your request'}>
             {viewer.role === 'coach' && review.status !== 'delivered' && (review.status === 'paid' || review.status === 'in_review') && (
               <p className="mb-4 text-sm text-ink-muted">
@@ -87,6 +88,13 @@ export default async function ReviewPage({ params, searchParams }: { params: Pro
               </p>
             )}
             {viewer.role === 'coach' && review.status === 'delivered' && <p className="text-sm text-ink-muted">Sent. A delivered review cannot be refunded here.</p>}
+            {payUrl && (
+              <p className="mb-4 text-sm">
+                <a href={payUrl} className="inline-flex min-h-11 items-center rounded-md bg-accent px-3.5 py-2 font-medium text-white">
+                  Pay {formatMoney(review.priceCents, review.currency)}
+                </a>
+              </p>
+            )}
             <ReviewActions review={review} role={viewer.role} drills={drills} />
           </Card>
         )}

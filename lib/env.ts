@@ -62,8 +62,20 @@ export const serverEnvSchema = z
     MAIL_DIR: z.string().min(1).default('.data/mail'),
     // Demo mode: the admin's Outbox page shows the mails the SMTP fake kept. npm start and npm test turn it on with the fake.
     DEMO_MODE: z.enum(['true', 'false'], { error: 'must be true or false' }).default('false'),
+    // Payments (paid remote reviews) through the provider's Node SDK. Production: the real secret key and the webhook
+    // endpoint's signing secret. npm start and npm test point the SDK at the local payments fake with the three
+    // PAYMENTS_API_* variables; unset, the SDK talks to the provider itself. Without PAYMENTS_SECRET_KEY, paid reviews
+    // answer 503 payments_unavailable.
+    PAYMENTS_SECRET_KEY: z.string().regex(/^(sk|rk)_\w+$/, { error: 'must be a secret key starting with sk_ (or a restricted key, rk_)' }).optional(),
+    PAYMENTS_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, { error: 'must be the webhook signing secret, starting with whsec_' }).optional(),
+    PAYMENTS_API_HOST: z.string().min(1).optional(),
+    PAYMENTS_API_PORT: z.coerce.number({ error: 'must be a TCP port number' }).int().min(1).max(65535).optional(),
+    PAYMENTS_API_PROTOCOL: z.enum(['http', 'https'], { error: 'must be http or https' }).optional(),
   })
   .superRefine((env, ctx) => {
+    if (env.PAYMENTS_SECRET_KEY && !env.PAYMENTS_WEBHOOK_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['PAYMENTS_WEBHOOK_SECRET'], message: 'is required with PAYMENTS_SECRET_KEY (the signing secret of the webhook endpoint)' });
+    }
     if (env.NODE_ENV === 'production' && !env.NEXTAUTH_SECRET && process.env.NEXT_PHASE !== 'phase-production-build') {
       ctx.addIssue({ code: 'custom', path: ['NEXTAUTH_SECRET'], message: 'is required in production (npm start generates one)' });
     }

@@ -9,6 +9,11 @@ import { DEMO_ACADEMY, DEMO_ATHLETES, DEMO_PASSWORD, DEMO_SESSIONS, DEMO_USERS }
 
 /** Children before parents, the order deletes must run in. */
 export const TABLES_CHILD_FIRST = [
+  'payment_events',
+  'review_payments',
+  'review_history',
+  'reviews',
+  'review_offers',
   'export_audit',
   'api_tokens',
   'consent_records',
@@ -89,6 +94,8 @@ export async function seedDemo(knex: Knex): Promise<void> {
     await seedDemoTargets(trx, DEMO_ACADEMY.id);
     await seedDemoDrills(trx, DEMO_ACADEMY.id);
     await seedDemoConsents(trx);
+    // Maren Solberg's remote review offer (invented price): 45.00 EUR, back within 3 days.
+    await trx('review_offers').insert({ coach_user_id: 2, price_cents: 4500, currency: 'EUR', turnaround_days: 3, updated_at: new Date('2026-11-01T09:00:00Z') });
   });
 }
 

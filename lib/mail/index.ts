@@ -4,6 +4,7 @@ import 'server-only';
 import { drillReminderMail, type DrillReminderMail } from './kinds/drill-reminder';
 import { invitationMail, type InvitationMail } from './kinds/invitation';
 import { passwordResetMail, type PasswordResetMail } from './kinds/password-reset';
+import { reviewUpdateMail, type ReviewUpdateMail } from './kinds/review-update';
 import { shareMail, type ShareMail } from './kinds/share';
 import { sendMail, type SendResult } from './transport';
 
@@ -14,3 +15,4 @@ export const sendInvitationMail = (to: string, m: InvitationMail): Promise<SendR
 export const sendPasswordResetMail = (to: string, m: PasswordResetMail): Promise<SendResult> => sendMail(to, passwordResetMail(m));
 export const sendShareMail = (to: string, m: ShareMail): Promise<SendResult> => sendMail(to, shareMail(m));
 export const sendDrillReminderMail = (to: string, m: DrillReminderMail): Promise<SendResult> => sendMail(to, drillReminderMail(m));
+export const sendReviewUpdateMail = (to: string, m: ReviewUpdateMail): Promise<SendResult> => sendMail(to, reviewUpdateMail(m));

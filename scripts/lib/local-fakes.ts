@@ -1,6 +1,7 @@
 // Hook for local stand-ins of outside services (mail, payments, object storage) that later issues add.
 // Each fake starts on loopback and returns the env variables that point the app at it.
 import { dirname, join, resolve } from 'node:path';
+import { startPaymentsFake } from './fakes/payments';
 import { startS3Fake } from './fakes/s3';
 import { startSmtpFake } from './fakes/smtp';
 
@@ -34,7 +35,18 @@ export function mailFakeDir(dir: string, env: Record<string, string | undefined>
 const startSmtp = (dir: string) =>
   process.env.SMTP_HOST || process.env.LOCAL_SMTP_FAKE === 'off' ? Promise.resolve(null) : startSmtpFake(mailFakeDir(dir));
 
-const STARTERS: FakeStarter[] = [startS3, startSmtp];
+// Payments: a fake of the provider's API (Checkout Sessions, Refunds, a pay page, signed webhooks) unless real keys are
+// configured (PAYMENTS_SECRET_KEY) or LOCAL_PAYMENTS_FAKE=off. The webhook secret is kept in
+// .data/payments-webhook-secret for `npm start`, in the fakes' own folder for any other run.
+export function paymentsSecretFile(dir: string): string {
+  if (resolve(dir) === resolve(join('.data', 'fakes'))) return resolve(join('.data', 'payments-webhook-secret'));
+  return join(resolve(dir), 'payments-webhook-secret');
+}
+
+const startPayments = (dir: string) =>
+  process.env.PAYMENTS_SECRET_KEY || process.env.LOCAL_PAYMENTS_FAKE === 'off' ? Promise.resolve(null) : startPaymentsFake(paymentsSecretFile(dir));
+
+const STARTERS: FakeStarter[] = [startS3, startSmtp, startPayments];
 
 /**
  * The fakes' folder of `npm start`: LOCAL_FAKES_DIR, else next to a MARIADB_DIR that picks another database (so a

@@ -39,6 +39,14 @@ describe('lib/env parseEnv', () => {
     expect(() => parseEnv({ DATABASE_URL: url, DEMO_MODE: 'on' })).toThrow(/DEMO_MODE: must be true or false/);
   });
 
+  it('payments: a secret key with its webhook secret, http(s) and a port for the API endpoint', () => {
+    const keys = { PAYMENTS_SECRET_KEY: 'sk_test_abc', PAYMENTS_WEBHOOK_SECRET: 'whsec_abc' };
+    expect(parseEnv({ DATABASE_URL: url, ...keys, PAYMENTS_API_PORT: '4242', PAYMENTS_API_PROTOCOL: 'http' })).toMatchObject({ ...keys, PAYMENTS_API_PORT: 4242 });
+    expect(() => parseEnv({ DATABASE_URL: url, PAYMENTS_SECRET_KEY: 'sk_test_abc' })).toThrow(/PAYMENTS_WEBHOOK_SECRET: is required with PAYMENTS_SECRET_KEY/);
+    expect(() => parseEnv({ DATABASE_URL: url, ...keys, PAYMENTS_SECRET_KEY: 'pk_test_abc' })).toThrow(/PAYMENTS_SECRET_KEY: must be a secret key/);
+    expect(() => parseEnv({ DATABASE_URL: url, ...keys, PAYMENTS_API_PROTOCOL: 'ftp' })).toThrow(/PAYMENTS_API_PROTOCOL/);
+  });
+
   it('wants both S3 keys or neither', () => {
     expect(() => parseEnv({ DATABASE_URL: url, STORAGE_S3_BUCKET: 'raw-files', STORAGE_S3_ACCESS_KEY_ID: 'k' })).toThrow(
       /STORAGE_S3_SECRET_ACCESS_KEY: STORAGE_S3_ACCESS_KEY_ID and STORAGE_S3_SECRET_ACCESS_KEY are set together/,

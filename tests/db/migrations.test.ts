@@ -53,6 +53,12 @@ const APP_TABLES = [
   'shot_profiles',
   'shot_imports',
   'shots',
+  // paid remote reviews: the coach's offer, the requests with their history, payments and refunds, handled events
+  'review_offers',
+  'reviews',
+  'review_history',
+  'review_payments',
+  'payment_events',
   // a recording's videos: original kept, playable mp4, poster, the sync offset
   'videos',
 ];

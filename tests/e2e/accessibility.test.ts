@@ -87,7 +87,13 @@ beforeAll(async () => {
   // a club on the viewed swing, so a target applies and the score panel shows pass and miss
   const labelled = await coachApi.json(`/api/swings/${swingIds[3]}`, { method: 'PATCH', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ labels: { club: 'iron-7' } }) });
   expect(labelled.status).toBe(200);
-  fixture = { athleteId: athlete.id, sessionId: session.id, swingIds, bandId: band.id };
+  // a paid remote review of this lesson (the student asks, pays on the payments fake's page)
+  const studentApi: HttpSession = await signedIn(baseUrl, DEMO.student, DEMO_PASSWORD);
+  const asked = await studentApi.json('/api/reviews', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ recordingId: done.id, question: 'Accessibility check request' }) });
+  expect(asked.status).toBe(201);
+  const { id: reviewId, checkoutUrl } = asked.body as { id: number; checkoutUrl: string };
+  expect((await fetch(checkoutUrl, { method: 'POST', redirect: 'manual' })).status).toBe(303);
+  fixture = { athleteId: athlete.id, sessionId: session.id, swingIds, bandId: band.id, reviewId };
 });
 
 afterEach(async ({ task }) => {

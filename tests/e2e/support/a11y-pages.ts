@@ -12,6 +12,8 @@ export interface A11yFixture {
   sessionId: number;
   swingIds: number[];
   bandId: number;
+  /** a paid remote review of the lesson, requested by the demo student */
+  reviewId: number;
 }
 
 export interface A11yCheck {
@@ -256,6 +258,12 @@ export const A11Y_CHECKS: A11yCheck[] = [
   },
 
   { name: 'admin invitations', route: '/invitations', as: 'admin', path: () => '/invitations' },
+  // paid remote reviews: the coach's offer and queue, the student's request page, the admin's revenue, one review
+  { name: 'coach reviews queue', route: '/reviews', as: 'coach', path: () => '/reviews' },
+  { name: 'coach review, deliver form', route: '/reviews/[id]', as: 'coach', path: (f) => `/reviews/${f.reviewId}`, ready: (page) => page.getByTestId('deliver-form').waitFor() },
+  { name: 'student reviews', route: '/reviews', as: 'student', path: () => '/reviews' },
+  { name: 'student review', route: '/reviews/[id]', as: 'student', path: (f) => `/reviews/${f.reviewId}?paid=1` },
+  { name: 'admin reviews and revenue', route: '/reviews', as: 'admin', path: () => '/reviews', ready: (page) => page.getByTestId('revenue-table').waitFor() },
   {
     name: 'admin outbox, a message open',
     route: '/outbox',

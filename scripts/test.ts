@@ -10,6 +10,7 @@ import { findFreePort } from './lib/free-port';
 import { startLocalFakes, type LocalFakes } from './lib/local-fakes';
 import { nextEnv, runNextBuild, startNextServer, type NextServer } from './lib/next-server';
 import { startThrowawayMariadb, type ThrowawayMariadb } from './lib/throwaway-mariadb';
+import { ensureTestPackages } from './lib/system-packages';
 
 const root = process.cwd();
 const E2E_CONFIG = 'vitest.e2e.config.ts';
@@ -87,6 +88,7 @@ function summarise(): number {
 }
 
 async function main(): Promise<void> {
+  await ensureTestPackages();
   banner('throwaway MariaDB');
   database = await startThrowawayMariadb(root);
   const { databaseUrl } = database;

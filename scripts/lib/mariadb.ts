@@ -4,7 +4,8 @@ import { spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { accessSync, constants, existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { delimiter, join, relative, resolve } from 'node:path';
-import { isPidAlive, runCapture, runInherit, waitFor, waitForPidExit } from './process';
+import { isPidAlive, runCapture, waitFor, waitForPidExit } from './process';
+import { installDebianPackages } from './system-packages';
 
 export const DB_NAME = 'stanceline';
 export const DB_USER = 'stanceline';
@@ -73,16 +74,8 @@ function requireExecutable(name: string): string {
 
 /** Installs Debian's mariadb-server and mariadb-client when mariadbd is missing (root only; otherwise says what to run). */
 export async function ensureMariadbInstalled(log: (line: string) => void = console.log): Promise<void> {
-  if (findExecutable('mariadbd') && findExecutable('mariadb-install-db') && findExecutable('mariadb-admin')) return;
-  const command = 'apt-get update && DEBIAN_FRONTEND=noninteractive apt-get install -y mariadb-server mariadb-client';
-  if (process.getuid?.() !== 0) {
-    throw new Error(`MariaDB is not installed (mariadbd not found). Install it as root:\n  sudo sh -c '${command}'`);
-  }
-  log('MariaDB is not installed; installing Debian packages mariadb-server and mariadb-client ...');
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  if ((await runInherit('apt-get', ['update'], { env })) !== 0) throw new Error(`apt-get update failed; run: ${command}`);
-  const installed = await runInherit('apt-get', ['install', '-y', 'mariadb-server', 'mariadb-client'], { env });
-  if (installed !== 0 || !findExecutable('mariadbd')) throw new Error(`installing MariaDB failed; run: ${command}`);
+  const present = () => Boolean(findExecutable('mariadbd') && findExecutable('mariadb-install-db') && findExecutable('mariadb-admin'));
+  if (!present()) await installDebianPackages(['mariadb-server', 'mariadb-client'], 'MariaDB (mariadbd)', present, log);
 }
 
 function optionFileText(config: MariadbConfig, files: MariadbFiles): string {

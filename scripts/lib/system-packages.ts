@@ -26,15 +26,28 @@ export function missingTestPackages(): string[] {
   return NEEDS.filter((need) => !need.present()).flatMap((need) => need.packages);
 }
 
+/**
+ * THE apt-get step of the scripts (MariaDB for npm start, ffmpeg, the test packages): installs `packages` as root, or
+ * throws with the command to run; `present` is checked again afterwards.
+ */
+export async function installDebianPackages(
+  packages: readonly string[],
+  what: string,
+  present: () => boolean,
+  log: (line: string) => void = console.log,
+): Promise<void> {
+  const command = `apt-get update && DEBIAN_FRONTEND=noninteractive apt-get install -y ${packages.join(' ')}`;
+  if (process.getuid?.() !== 0) throw new Error(`${what} is not installed. Install it as root:\n  sudo sh -c '${command}'`);
+  log(`${what} is not installed; installing the Debian packages ${packages.join(' ')} ...`);
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  if ((await runInherit('apt-get', ['update'], { env })) !== 0) throw new Error(`apt-get update failed; run: ${command}`);
+  if ((await runInherit('apt-get', ['install', '-y', ...packages], { env })) !== 0 || !present()) {
+    throw new Error(`installing ${what} failed; run: ${command}`);
+  }
+}
+
 export async function ensureTestPackages(log: (line: string) => void = console.log): Promise<void> {
   const missing = missingTestPackages();
   if (missing.length === 0) return;
-  const command = `apt-get update && DEBIAN_FRONTEND=noninteractive apt-get install -y ${missing.join(' ')}`;
-  if (process.getuid?.() !== 0) throw new Error(`the tests need Debian packages that are missing: ${missing.join(', ')}. Install them as root:\n  sudo sh -c '${command}'`);
-  log(`installing the Debian packages the tests need: ${missing.join(' ')} ...`);
-  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-  if ((await runInherit('apt-get', ['update'], { env })) !== 0) throw new Error(`apt-get update failed; run: ${command}`);
-  if ((await runInherit('apt-get', ['install', '-y', ...missing], { env })) !== 0) throw new Error(`apt-get install failed; run: ${command}`);
-  const still = missingTestPackages();
-  if (still.length > 0) throw new Error(`still missing after apt-get: ${still.join(', ')}`);
+  await installDebianPackages(missing, `what the tests need (${missing.join(', ')})`, () => missingTestPackages().length === 0, log);
 }

@@ -1,9 +1,12 @@
 // Benchmark of the API under load (npm run bench:api). Prints figures beside the issue's targets; asserts nothing.
 // One throwaway app (MariaDB, local fakes, `next start` on a free port, built first when sources changed), in one run:
-// 1. autocannon (50 connections, 10 s each) on a static file, GET /api/me, GET /api/recordings/:id and
-//    GET /api/swings/:id (a generated 10-minute lesson uploaded first), req/s and p50/p99, ratios to the static file;
-// 2. GET /api/me under the same load while a generated 60-minute lesson (100 Hz, 8 sensors per foot) is processed:
-//    its p99, and upload -> ready for that file.
+// 1. autocannon (50 connections, 10 s each) on a static file, GET /api/health (a route handler that does nothing: the
+//    floor of any route), GET /api/me, GET /api/recordings/:id and GET /api/swings/:id (a generated 10-minute lesson
+//    uploaded first), req/s and p50/p99, ratios to the static file;
+// 2. GET /api/me while a generated 60-minute lesson (100 Hz, 8 sensors per foot) is processed, under the same load
+//    (50 connections) and under a light one (5 connections), each beside the same load without an upload: its p99,
+//    and upload -> ready for that file. At 50 connections the server is saturated and every request queues behind
+//    the others (p50 ~ connections / req/s), so the light load is the one that shows a stall of the event loop.
 import { execFile } from 'node:child_process';
 import { createRequire } from 'node:module';
 import { createWriteStream, mkdtempSync, openAsBlob, readdirSync, rmSync } from 'node:fs';
@@ -18,13 +21,14 @@ import { startThrowawayApp } from './lib/throwaway-app';
 
 const TARGET = { swingsVsMe: 0.5, meVsStatic: 0.6, meP99DuringUploadMs: 150, readyS: 5 }; // from the issue
 const CONNECTIONS = 50;
+const LIGHT_CONNECTIONS = 5;
 const SECONDS = 10;
 const root = process.cwd();
 
 type Load = { rps: number; p50: number; p99: number; total: number; non2xx: number; errors: number };
 
-async function autocannon(url: string, headers: Record<string, string>, seconds = SECONDS): Promise<Load> {
-  const args = [join(root, 'node_modules', 'autocannon', 'autocannon.js'), '-c', String(CONNECTIONS), '-d', String(seconds), '-j'];
+async function autocannon(url: string, headers: Record<string, string>, seconds = SECONDS, connections = CONNECTIONS): Promise<Load> {
+  const args = [join(root, 'node_modules', 'autocannon', 'autocannon.js'), '-c', String(connections), '-d', String(seconds), '-j'];
   for (const [k, v] of Object.entries(headers)) args.push('-H', `${k}=${v}`);
   const { stdout } = await promisify(execFile)(process.execPath, [...args, url], { maxBuffer: 16 << 20 });
   const r = JSON.parse(stdout) as { requests: { average: number; total: number }; latency: { p50: number; p99: number }; non2xx: number; errors: number };
@@ -117,11 +121,13 @@ async function main(): Promise<void> {
     console.log(`\n## ${CONNECTIONS} connections, ${SECONDS} s each, one server (${base})`);
     console.log(`GET /api/swings/${swingId}: ${(swingBytes / 1024).toFixed(1)} KB of JSON (${swing.headers.get('content-encoding') ?? 'identity'} on the wire)`);
     const staticLoad = await autocannon(`${base}/_next/static/chunks/${chunk}`, {});
+    const health = await autocannon(`${base}/api/health`, {});
     const me = await autocannon(`${base}/api/me`, { cookie });
     const recording = await autocannon(`${base}/api/recordings/${recordingId}`, { cookie });
     const swings = await autocannon(`${base}/api/swings/${swingId}`, { cookie, 'accept-encoding': 'gzip' });
     const swings304 = await autocannon(`${base}/api/swings/${swingId}`, { cookie, 'accept-encoding': 'gzip', 'if-none-match': swing.headers.get('etag') ?? '' });
     row('static file', staticLoad, staticLoad);
+    row('GET /api/health (floor)', health, staticLoad);
     row('GET /api/me', me, staticLoad);
     row('GET /api/recordings/:id', recording, staticLoad);
     row('GET /api/swings/:id (gzip)', swings, staticLoad);
@@ -129,18 +135,25 @@ async function main(): Promise<void> {
     const verdict = (ok: boolean) => (ok ? 'met' : 'NOT met');
     console.log(`/api/swings/:id vs /api/me:  ${(swings.rps / me.rps).toFixed(2)}   (target >= ${TARGET.swingsVsMe}: ${verdict(swings.rps / me.rps >= TARGET.swingsVsMe)})`);
     console.log(`/api/me vs static file:      ${(me.rps / staticLoad.rps).toFixed(2)}   (target >= ${TARGET.meVsStatic}: ${verdict(me.rps / staticLoad.rps >= TARGET.meVsStatic)})`);
+    console.log(`/api/me vs the route floor:  ${(me.rps / health.rps).toFixed(2)}   (GET /api/health is ${(health.rps / staticLoad.rps).toFixed(2)} x static: what Next costs per route request before any of ours)`);
 
     console.log(`\n## GET /api/me while a 60-minute lesson (100 Hz, 8 sensors per foot) is processed`);
     const lesson60 = join(dir, 'lesson-60min.csv');
     await writeLesson(lesson60, 3600, 120, 1);
-    const t0 = performance.now();
-    const id60 = await uploadLesson(coach, lesson60, 'bench-api-60min.csv');
-    const during = autocannon(`${base}/api/me`, { cookie }, 6);
-    const done = await waitReady(coach, id60);
-    const readyS = (performance.now() - t0) / 1000;
-    const load = await during;
-    console.log(`upload -> ${done.status}:          ${readyS.toFixed(2)} s   (target <= ${TARGET.readyS} s: ${verdict(readyS <= TARGET.readyS)}; ${done.swings.length} swings)`);
-    console.log(`GET /api/me during it:      ${load.rps.toFixed(0)} req/s  p50 ${load.p50} ms  p99 ${load.p99} ms   (target p99 <= ${TARGET.meP99DuringUploadMs} ms: ${verdict(load.p99 <= TARGET.meP99DuringUploadMs)})`);
+    for (const [k, connections] of [CONNECTIONS, LIGHT_CONNECTIONS].entries()) {
+      const quiet = await autocannon(`${base}/api/me`, { cookie }, 6, connections);
+      const t0 = performance.now();
+      const id60 = await uploadLesson(coach, lesson60, `bench-api-60min-${k}.csv`);
+      const uploadS = (performance.now() - t0) / 1000;
+      const during = autocannon(`${base}/api/me`, { cookie }, 6, connections);
+      const done = await waitReady(coach, id60);
+      const readyS = (performance.now() - t0) / 1000;
+      const load = await during;
+      console.log(`${connections} connections:`);
+      console.log(`  upload -> ${done.status}:        ${readyS.toFixed(2)} s   (target <= ${TARGET.readyS} s: ${verdict(readyS <= TARGET.readyS)}; the upload request itself ${uploadS.toFixed(2)} s; ${done.swings.length} swings)`);
+      console.log(`  GET /api/me without upload: ${quiet.rps.toFixed(0)} req/s  p50 ${quiet.p50} ms  p99 ${quiet.p99} ms`);
+      console.log(`  GET /api/me during it:      ${load.rps.toFixed(0)} req/s  p50 ${load.p50} ms  p99 ${load.p99} ms   (target p99 <= ${TARGET.meP99DuringUploadMs} ms: ${verdict(load.p99 <= TARGET.meP99DuringUploadMs)})`);
+    }
   } finally {
     await app.stop();
     rmSync(dir, { recursive: true, force: true });

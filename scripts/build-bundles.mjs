@@ -15,11 +15,13 @@ const SHARED_INPUTS = ['lib/signal', 'package.json', 'tsconfig.json', 'scripts/b
 
 export const BUNDLES = {
   analyze: { entry: 'scripts/analyze.ts', out: 'analyze.mjs', inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts'] },
-  // the job pool's worker thread (lib/jobs/pool.ts): every task registered in lib/jobs/tasks
+  // the job pool's worker thread (lib/jobs/pool.ts): every task registered in lib/jobs/tasks. Its npm packages
+  // (knex, mysql2, the S3 SDK, zod, ...) stay outside the bundle and load from node_modules like the server's own.
   'job-thread': {
     entry: 'lib/jobs/thread-entry.ts',
     out: 'job-thread.mjs',
-    inputs: ['lib/jobs/thread-entry.ts', 'lib/jobs/tasks', 'lib/recordings/options.ts', 'lib/recordings/stored-text.ts', 'lib/live/analyze-window.ts'],
+    inputs: ['lib/jobs', 'lib/swings', 'lib/storage', 'lib/db', 'lib/env.ts', 'lib/recordings', 'lib/live', 'lib/contracts'],
+    packagesExternal: true,
   },
 };
 
@@ -59,6 +61,7 @@ export async function buildBundle(name) {
     banner: { js: "import { createRequire as __stancelineRequire } from 'node:module'; const require = __stancelineRequire(import.meta.url);" },
     logLevel: 'warning',
     legalComments: 'none',
+    ...(BUNDLES[name].packagesExternal ? { packages: 'external' } : {}),
   });
   return bundlePath(name);
 }

@@ -5,10 +5,11 @@ import useSWR from 'swr';
 import type { OverlayTrace } from '@/components/charts';
 import { fetchJson } from '@/lib/fetcher';
 import { swingUrl } from './swing-api';
-import { swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
+import { overlayOptionsResponseSchema, swingViewResponseSchema } from '@/lib/contracts/swings';
 import { eventRecord, traceSeries } from './swing-view-model';
 
 const fetchSwing = fetchJson(swingViewResponseSchema);
+const fetchOptions = fetchJson(overlayOptionsResponseSchema);
 
 /** The chosen swing as an overlay, or null while none is chosen or it is loading. */
 export function useOverlay(id: number | null): { overlay: OverlayTrace | null; loading: boolean; error: unknown } {
@@ -18,10 +19,14 @@ export function useOverlay(id: number | null): { overlay: OverlayTrace | null; l
   return { overlay, loading: isLoading, error };
 }
 
-/** Grouped by session (newest first), swings in time order within each; a search box narrows the list by date, club, number or file. */
-export function OverlayPicker({ self, options, value, onChange, loading }: { self: number; options: SwingView['siblings']['sameAthlete']; value: number | null; onChange: (id: number | null) => void; loading: boolean }) {
+/**
+ * Grouped by session (newest first), swings in time order within each; a search box narrows the list by date, club,
+ * number or file. The list is its own request (GET /api/swings/:id/overlay-options), made after the swing itself.
+ */
+export function OverlayPicker({ self, value, onChange, loading }: { self: number; value: number | null; onChange: (id: number | null) => void; loading: boolean }) {
   const [query, setQuery] = useState('');
-  const list = options.filter((o) => o.id !== self);
+  const { data } = useSWR(`${swingUrl(self)}/overlay-options`, fetchOptions, { revalidateOnFocus: false });
+  const list = (data?.options ?? []).filter((o) => o.id !== self);
   const q = query.trim().toLowerCase();
   const shown = q ? list.filter((o) => `${o.group} ${o.label}`.toLowerCase().includes(q) || o.id === value) : list;
   const groups: { name: string; items: typeof list }[] = [];
@@ -52,7 +57,7 @@ export function OverlayPicker({ self, options, value, onChange, loading }: { sel
         data-testid="overlay-picker"
         disabled={list.length === 0}
       >
-        <option value="">{list.length ? (q ? `${shown.length} found` : 'no second swing') : 'no other swings'}</option>
+        <option value="">{data === undefined ? 'loading the list…' : list.length ? (q ? `${shown.length} found` : 'no second swing') : 'no other swings'}</option>
         {groups.map((g) => (
           <optgroup key={g.name} label={g.name}>
             {g.items.map((o) => (

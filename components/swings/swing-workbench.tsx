@@ -209,7 +209,7 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
           timeZero={timeZero}
           actions={
             <span className="flex flex-wrap items-center gap-3">
-              <OverlayPicker self={swing.id} options={swing.siblings.sameAthlete} value={overlayId} onChange={setOverlayId} loading={overlayLoading} />
+              <OverlayPicker self={swing.id} value={overlayId} onChange={setOverlayId} loading={overlayLoading} />
               {canEdit && <BandPicker value={bandId} onChange={setBandId} loading={bandLoading} />}
             </span>
           }

@@ -32,6 +32,7 @@ export const TABLES_CHILD_FIRST = [
   'swing_event_corrections',
   'swing_labels',
   'swing_series',
+  'recording_payloads',
   'recording_series',
   'swing_event_values',
   'swing_phase_metrics',

@@ -20,13 +20,22 @@ export type AthleteAccess = 'coach' | 'student';
 
 /** How the viewer relates to an athlete: their coach, the athlete themself, or null (not theirs to know). */
 export async function athleteAccess(viewer: Viewer, athleteId: number): Promise<AthleteAccess | null> {
-  const athlete = await db('athletes').where({ id: athleteId, academy_id: viewer.academyId }).first('id', 'user_id');
-  if (!athlete) return null;
-  if (viewer.role === 'coach') {
-    const link = await db('coach_athletes').where({ coach_user_id: viewer.id, athlete_id: athleteId }).first('athlete_id');
-    return link ? 'coach' : null;
-  }
-  if (viewer.role === 'student' && Number(athlete.user_id) === viewer.id) return 'student';
+  const athlete = await db('athletes as a')
+    .leftJoin('coach_athletes as ca', (j) => j.on('ca.athlete_id', 'a.id').andOnVal('ca.coach_user_id', viewer.id))
+    .where({ 'a.id': athleteId })
+    .first('a.academy_id', 'a.user_id', 'ca.athlete_id as coach_link');
+  return athlete ? accessFromRow(viewer, athlete) : null;
+}
+
+/**
+ * The same rule on columns a caller read together with its own row (one query instead of two): the athlete's
+ * `academy_id` and `user_id`, and `coach_link`, non-null when coach_athletes links the viewer to the athlete
+ * (LEFT JOIN coach_athletes ON athlete_id = the athlete AND coach_user_id = the viewer).
+ */
+export function accessFromRow(viewer: Viewer, row: { academy_id: unknown; user_id: unknown; coach_link: unknown }): AthleteAccess | null {
+  if (Number(row.academy_id) !== viewer.academyId) return null;
+  if (viewer.role === 'coach') return row.coach_link !== null && row.coach_link !== undefined ? 'coach' : null;
+  if (viewer.role === 'student' && row.user_id !== null && Number(row.user_id) === viewer.id) return 'student';
   return null;
 }
 

@@ -118,11 +118,10 @@ export const swingViewSchema = swingDetailSchema.extend({
     /** moves the swing finder looked at and did not count, with the reason in plain words */
     candidates: z.array(z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() })),
   }),
+  /** the previous and next swing of the same recording (GET /api/swings/:id/overlay-options lists the athlete's others) */
   siblings: z.object({
     previousId: z.number().int().nullable(),
     nextId: z.number().int().nullable(),
-    /** other swings of the athlete, newest session first, each session's swings in time order; `group` names the session */
-    sameAthlete: z.array(z.object({ id: z.number().int(), label: z.string(), group: z.string() })),
   }),
   layout: z.object({
     id: z.string(),
@@ -213,3 +212,12 @@ export type SwingPatchInput = z.infer<typeof swingPatchSchema>;
 export type SwingLabelsInput = z.infer<typeof swingLabelsInputSchema>;
 export type AnnotationCreateInput = z.infer<typeof annotationCreateSchema>;
 export type AnnotationPatchInput = z.infer<typeof annotationPatchSchema>;
+
+/**
+ * GET /api/swings/:id/overlay-options: the athlete's other swings to draw over this one, newest session first, each
+ * session's swings in time order with their session-wide number; `group` names the session. At most 200.
+ */
+export const overlayOptionSchema = z.object({ id: z.number().int(), label: z.string(), group: z.string() });
+export type OverlayOption = z.infer<typeof overlayOptionSchema>;
+export const overlayOptionsResponseSchema = z.object({ options: z.array(overlayOptionSchema) });
+export type OverlayOptionsResponse = z.infer<typeof overlayOptionsResponseSchema>;

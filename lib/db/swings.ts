@@ -3,12 +3,14 @@ import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { jsonColumn, r0, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
-import { athleteAccess } from '@/lib/auth/access';
+import { accessFromRow } from '@/lib/auth/access';
 import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { listAnnotations } from '@/lib/swings/annotations';
 import { labelsOf } from '@/lib/swings/labels';
-import { correctionsView, siblingsView } from '@/lib/swings/viewer-data';
-import { payloadTextOf } from '@/lib/swings/payload';
+import { correctionsView } from '@/lib/swings/viewer-data';
+import type { Knex } from 'knex';
+import { payloadBytesOf } from '@/lib/swings/payload';
+import { swingBodyBytes } from '@/lib/swings/payload-view';
 import type { SwingPayload } from '@/lib/swings/payload-build';
 
 // One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id; with
@@ -21,103 +23,146 @@ function jsonObject(value: unknown): Record<string, unknown> {
 }
 
 type ReaderPart = Omit<SwingView, keyof SwingPayload>;
+type Row = Record<string, unknown>;
+
+const DETAIL_COLUMNS = [
+  's.id',
+  's.swing_index',
+  's.start_s',
+  's.end_s',
+  's.impact_source',
+  's.tempo_ratio',
+  's.hidden',
+  's.stale',
+  's.partial',
+  's.forward_press_s',
+  's.forward_press_mm',
+  's.promoted',
+  'r.id as recording_id',
+  'r.filename',
+  'r.algorithm_version',
+  'r.parameters',
+  'r.athlete_id',
+  'p.id as session_id',
+  'p.session_date',
+  'p.context',
+  'a.display_name',
+  'a.date_of_birth',
+  // for the access rule (lib/auth/access.ts accessFromRow)
+  'a.academy_id',
+  'a.user_id',
+  'ca.athlete_id as coach_link',
+];
 
 /**
- * The per-reader part of a swing's view, after the access check (getSwingDetail): 404 for an unknown id or a swing
- * of an athlete the viewer does not see (coach: roster; student: own). A student gets only the notes shared with
- * them and no correction audit. With it the stored payload text every reader shares (lib/swings/payload.ts).
+ * The swing's row with what the access rule needs, in one query; with `view`, also its labels, the two stored
+ * payload texts (as bytes: they go out as they are) and its neighbours in the recording. 404 (the same answer as an
+ * unknown id) for a swing the viewer may not see, or of a deleted session or recording until it is restored.
  */
-async function swingViewParts(viewer: Viewer, swingId: number): Promise<{ reader: ReaderPart; payloadText: string }> {
-  const { detail, access } = await getSwingDetail(viewer, swingId);
+async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise<{ row: Row; access: 'coach' | 'student' }> {
+  const q = db('swings as s')
+    .join('recordings as r', 'r.id', 's.recording_id')
+    .join('practice_sessions as p', 'p.id', 'r.session_id')
+    .join('athletes as a', 'a.id', 'r.athlete_id')
+    .leftJoin('coach_athletes as ca', (j) => j.on('ca.athlete_id', 'a.id').andOnVal('ca.coach_user_id', viewer.id))
+    .where('s.id', swingId)
+    .whereNull('r.binned_at')
+    .whereNull('p.binned_at');
+  const columns: (string | Knex.Raw)[] = [...DETAIL_COLUMNS];
+  if (view) {
+    q.leftJoin('swing_labels as l', 'l.swing_id', 's.id')
+      .leftJoin('swing_payloads as sp', 'sp.swing_id', 's.id')
+      .leftJoin('recording_payloads as rp', 'rp.recording_id', 'r.id');
+    columns.push(
+      'l.swing_id as label_row',
+      'l.club',
+      'l.strike',
+      'l.flight',
+      'l.tags',
+      'l.rating',
+      db.raw('CAST(sp.body AS BINARY) AS swing_part'),
+      db.raw('CAST(rp.body AS BINARY) AS shared_part'),
+      db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index < s.swing_index ORDER BY x.swing_index DESC LIMIT 1) AS previous_id'),
+      db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index > s.swing_index ORDER BY x.swing_index ASC LIMIT 1) AS next_id'),
+    );
+  }
+  const row: Row | undefined = await q.first(columns);
+  const access = row ? accessFromRow(viewer, row as { academy_id: unknown; user_id: unknown; coach_link: unknown }) : null;
+  if (!row || !access) throw new NotFoundError('No swing with this id.');
+  return { row, access };
+}
+
+/**
+ * The per-reader part of a swing's view, after the access check (swingRow): 404 for an unknown id or a swing of an
+ * athlete the viewer does not see (coach: roster; student: own). A student gets only the notes shared with them and
+ * no correction audit. With it the stored payload bytes every reader shares (lib/swings/payload.ts); the list of
+ * the athlete's other swings for the overlay is its own request (GET /api/swings/:id/overlay-options).
+ */
+async function swingViewParts(viewer: Viewer, swingId: number): Promise<{ reader: ReaderPart; payload: { shared: Buffer; swing: Buffer } }> {
+  const { row, access } = await swingRow(viewer, swingId, true);
   const isCoach = access === 'coach';
-  const [payloadText, siblings, labelRow, annotations, corrections] = await Promise.all([
-    payloadTextOf(swingId),
-    siblingsView(swingId, detail.recording.id, detail.index, detail.athlete.id),
-    db('swing_labels').where({ swing_id: swingId }).first(),
+  const [detail, payload, annotations, corrections] = await Promise.all([
+    detailOf(row, swingId),
+    payloadBytesOf(swingId, Number(row.recording_id), row.shared_part as Buffer | null, row.swing_part as Buffer | null),
     listAnnotations(swingId, !isCoach),
     isCoach ? correctionsView(swingId) : Promise.resolve([]),
   ]);
-  const reader: ReaderPart = { ...detail, siblings, labels: labelsOf(labelRow, detail.hidden), annotations, corrections, canEdit: isCoach };
-  return { reader, payloadText };
+  const siblings = { previousId: row.previous_id === null ? null : Number(row.previous_id), nextId: row.next_id === null ? null : Number(row.next_id) };
+  const labels = labelsOf(row.label_row === null ? undefined : row, detail.hidden);
+  const reader: ReaderPart = { ...detail, siblings, labels, annotations, corrections, canEdit: isCoach };
+  return { reader, payload };
 }
 
-/** The GET /api/swings/:id body as JSON text: the reader's part with the stored payload spliced in unparsed. */
+/** The GET /api/swings/:id body as JSON bytes: the reader's part with the stored payload bytes spliced in as they are. */
+export async function swingViewBytes(viewer: Viewer, swingId: number): Promise<Buffer> {
+  const { reader, payload } = await swingViewParts(viewer, swingId);
+  return swingBodyBytes(JSON.stringify(reader), payload.shared, payload.swing);
+}
+
+/** The same as text (tests and server-side callers). */
 export async function swingViewText(viewer: Viewer, swingId: number): Promise<string> {
-  const { reader, payloadText } = await swingViewParts(viewer, swingId);
-  const head = JSON.stringify(reader);
-  // both are JSON objects: '{...reader' + ',' + 'payload...}' ; an empty payload object is never stored
-  return `{"swing":${head.slice(0, -1)},${payloadText.slice(1)}}`;
+  return (await swingViewBytes(viewer, swingId)).toString('utf8');
 }
 
 /** The swing's view as an object (server components; the same parts as the route). */
 export async function getSwingForViewer(viewer: Viewer, swingId: number): Promise<SwingView> {
-  const { reader, payloadText } = await swingViewParts(viewer, swingId);
-  return { ...reader, ...(JSON.parse(payloadText) as SwingPayload) };
+  const { reader, payload } = await swingViewParts(viewer, swingId);
+  return { ...reader, ...(JSON.parse(payload.shared.toString('utf8')) as Partial<SwingPayload>), ...(JSON.parse(payload.swing.toString('utf8')) as Partial<SwingPayload>) } as SwingView;
 }
 
 /** The numbers only (what the swing page's tables show). */
 export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{ detail: SwingDetail; access: 'coach' | 'student' }> {
-  const row = await db('swings as s')
-    .join('recordings as r', 'r.id', 's.recording_id')
-    .join('practice_sessions as p', 'p.id', 'r.session_id')
-    .join('athletes as a', 'a.id', 'r.athlete_id')
-    .where('s.id', swingId)
-    .whereNull('r.binned_at') // a swing of a deleted session or recording is unknown until it is restored
-    .whereNull('p.binned_at')
-    .first(
-      's.id',
-      's.swing_index',
-      's.start_s',
-      's.end_s',
-      's.impact_source',
-      's.tempo_ratio',
-      's.hidden',
-      's.stale',
-      's.partial',
-      's.forward_press_s',
-      's.forward_press_mm',
-      's.promoted',
-      'r.id as recording_id',
-      'r.filename',
-      'r.algorithm_version',
-      'r.parameters',
-      'r.athlete_id',
-      'p.id as session_id',
-      'p.session_date',
-      'p.context',
-      'a.display_name',
-      'a.date_of_birth',
-    );
-  if (!row) throw new NotFoundError('No swing with this id.');
-  const access = await athleteAccess(viewer, Number(row.athlete_id));
-  if (!access) throw new NotFoundError('No swing with this id.');
+  const { row, access } = await swingRow(viewer, swingId, false);
+  return { detail: await detailOf(row, swingId), access };
+}
 
+async function detailOf(row: Row, swingId: number): Promise<SwingDetail> {
   const [events, values, phases] = await Promise.all([
     db('swing_events').where({ swing_id: swingId }).select('name', 'time_s', 'source', 'auto_time_s', 'misfit'),
     db('swing_event_values').where({ swing_id: swingId }).select('event', 'lead_pct', 'lead_heel_pct', 'trail_heel_pct', 'cop_x_mm', 'cop_y_mm'),
     db('swing_phase_metrics').where({ swing_id: swingId }).select('phase', 'duration_s', 'cop_path_mm', 'peak_cop_speed_mm_s', 'mean_lead_pct'),
   ]);
 
-  const detail: SwingDetail = {
+  return {
     id: Number(row.id),
     index: Number(row.swing_index),
     startS: r3(row.start_s) ?? 0,
     endS: r3(row.end_s) ?? 0,
-    impactSource: row.impact_source,
+    impactSource: row.impact_source as SwingDetail['impactSource'],
     tempoRatio: r2(row.tempo_ratio),
     hidden: Boolean(row.hidden),
     stale: Boolean(row.stale),
     partial: Boolean(row.partial),
     forwardPress: row.forward_press_s === null ? null : { timeS: r3(row.forward_press_s) ?? 0, sizeMm: r1(row.forward_press_mm) ?? 0 },
-    promoted: row.promoted ?? null,
+    promoted: (row.promoted as SwingDetail['promoted']) ?? null,
     recording: {
       id: Number(row.recording_id),
-      filename: row.filename,
-      algorithmVersion: row.algorithm_version ?? null,
+      filename: row.filename as string,
+      algorithmVersion: (row.algorithm_version as string | null) ?? null,
       parameters: jsonObject(row.parameters),
     },
-    session: { id: Number(row.session_id), sessionDate: toIsoDate(row.session_date) ?? '', context: row.context },
-    athlete: { id: Number(row.athlete_id), displayName: row.display_name, dateOfBirth: toIsoDate(row.date_of_birth) },
+    session: { id: Number(row.session_id), sessionDate: toIsoDate(row.session_date) ?? '', context: row.context as SwingDetail['session']['context'] },
+    athlete: { id: Number(row.athlete_id), displayName: row.display_name as string, dateOfBirth: toIsoDate(row.date_of_birth) },
     // In event order, not row order.
     events: eventNames
       .map((name) => ({ name, e: events.find((x) => x.name === name), v: values.find((x) => x.event === name) }))
@@ -145,7 +190,6 @@ export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{
         meanLeadPct: r1(p.mean_lead_pct),
       })),
   };
-  return { detail, access };
 }
 
 /** The GET /api/swings/:id `swing` body for server components (the same function the route uses). */

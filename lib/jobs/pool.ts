@@ -7,12 +7,13 @@ import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
+import type { TransferListItem } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { runRegisteredTask, type TaskName, type TaskPayload, type TaskResult } from './tasks';
 
 export interface RunOptions {
-  /** buffers that move to the thread instead of being copied; the caller must not use them afterwards */
-  transfer?: ArrayBuffer[];
+  /** buffers and ports that move to the thread instead of being copied; the caller must not use them afterwards */
+  transfer?: TransferListItem[];
 }
 
 export interface TaskRunner {
@@ -38,9 +39,11 @@ export function createTaskPool(options: { threads?: number; file?: string } = {}
   if (!(Number.isInteger(threads) && threads >= 1)) throw new RangeError(`job threads must be a whole number >= 1, got ${threads}`);
   const pool = new Piscina({
     filename: pathToFileURL(file).href,
-    minThreads: 0,
+    // One thread stays for the server's life: a fresh thread costs its start-up (~0.2 s) and, more, a first job
+    // run before the JIT has compiled the analysis (an hour at 100 Hz took ~2.8 s longer on a cold thread than on a
+    // warm one; scripts/bench-api.ts). Threads beyond the first give their memory back after a minute idle.
+    minThreads: 1,
     maxThreads: threads,
-    // a thread lives on between jobs for a while (its start-up costs ~0.2 s), then gives its memory back
     idleTimeout: 60_000,
   });
   return {

@@ -1,57 +1,54 @@
-// One processing attempt of one recording: stream the stored raw file through the signal core and write the
-// outcome. Bad input (SignalInputError, or a parameter the core refuses with RangeError) is a verdict about the
-// file: the recording fails with the message, line and column, and the job is finished. Anything else (storage
-// or database trouble) propagates so the worker can retry.
+// One processing attempt of one recording: stream the stored raw file through the signal core, prepare the rows
+// (lib/jobs/prepare-results.ts) and write them in one transaction. Bad input (SignalInputError, or a parameter the
+// core refuses with RangeError) is a verdict about the file: the recording fails with the message, line and column,
+// and the job is finished. Anything else (storage or database trouble) propagates so the worker can retry.
+// The app runs all of it in a job thread (task "process-job", lib/jobs/tasks/process-job.ts) with the thread's own
+// connections, so neither the analysis nor the statements of a large result hold up the server's event loop;
+// tests and scripts call it on their own thread.
 import type { Knex } from 'knex';
 import type { Readable } from 'node:stream';
-import { recordingOptionsSchema } from '@/lib/recordings/options';
+import { analyzeRecording, SignalInputError } from '@/lib/signal';
+import { analyzeOptionsOf, profileOf, recordingOptionsSchema, resolveLayout, type RecordingOptions } from '@/lib/recordings/options';
+import { readStoredRecording } from '@/lib/recordings/stored-text';
 import type { RawFileStore } from '@/lib/storage/types';
-import { failRecordingRows, finishJob, stillOwned, type ClaimedJob } from './queue';
-import { writeResults } from './write-results';
 import { jsonColumn } from '@/lib/db/values';
-import { inlineRunner, type TaskRunner } from './pool';
-import type { AnalysisOutcome } from './tasks/analyze-recording';
+import { failRecordingRows, finishJob, stillOwned, type ClaimedJob } from './queue';
+import { prepareResults, type PreparedAnalysis } from './prepare-results';
+import { writeResults } from './write-results';
 
 export type Verdict = { kind: 'ready'; swings: number } | { kind: 'failed'; message: string } | { kind: 'lost' };
 
-async function readAll(source: Readable): Promise<Uint8Array> {
-  const chunks: Buffer[] = [];
-  let total = 0;
+export type InputProblem = { message: string; line: number | null; column: number | null };
+export type AnalysisOutcome = { prepared: PreparedAnalysis } | { problem: InputProblem };
+
+/** The analysis of a readable source, prepared for storing; or the input problem that stopped it. */
+export async function analyzeSource(source: Readable, options: RecordingOptions, promote: readonly number[]): Promise<AnalysisOutcome> {
   try {
-    for await (const chunk of source) {
-      chunks.push(chunk as Buffer);
-      total += (chunk as Buffer).length;
+    const raw = await readStoredRecording(source, profileOf(options));
+    const layout = resolveLayout(options, raw.metadata);
+    return { prepared: prepareResults(analyzeRecording(raw, layout, analyzeOptionsOf(options, promote))) };
+  } catch (error) {
+    if (error instanceof SignalInputError) {
+      // the message already starts with "line L, column C: " when the problem has a place in the file
+      return { problem: { message: error.message, line: error.line, column: error.column } };
     }
-  } finally {
-    source.destroy();
+    if (error instanceof RangeError) return { problem: { message: `processing parameter refused: ${error.message}`, line: null, column: null } };
+    throw error;
   }
-  // one fresh buffer of its own, so it can move to the thread instead of being copied
-  const bytes = new Uint8Array(total);
-  let at = 0;
-  for (const c of chunks) {
-    bytes.set(c, at);
-    at += c.length;
-  }
-  return bytes;
 }
 
-/**
- * Runs the analysis; returns the output, or the input problem that stopped it. The stored file and the coach's
- * promotions are read here; the analysis itself is the pure task "analyze-recording", in a worker thread when
- * `runner` is the app's pool, on this thread with the inline runner (tests, scripts).
- */
-export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: number, runner: TaskRunner = inlineRunner): Promise<AnalysisOutcome> {
+/** Reads the recording's options, the coach's promotions and the stored file, and analyses it. */
+export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: number): Promise<AnalysisOutcome> {
   const row = await db('recordings').where({ id: recordingId }).first('storage_key', 'options');
   if (!row) throw new Error(`recording ${recordingId} does not exist`);
   const options = recordingOptionsSchema.parse(jsonColumn(row.options));
   // a coach's promoted candidates are detected again on every analysis (lib/recordings/promote.ts)
   const promote: number[] = (await db('candidate_promotions').where({ recording_id: recordingId }).orderBy('id').pluck('time_s')).map(Number);
-  const bytes = await readAll(await store.read(row.storage_key));
-  return runner.runTask('analyze-recording', { bytes, options, promote }, { transfer: [bytes.buffer as ArrayBuffer] });
+  return analyzeSource(await store.read(row.storage_key), options, promote);
 }
 
-export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string, runner: TaskRunner = inlineRunner): Promise<Verdict> {
-  const outcome = await analyzeStored(db, store, job.recordingId, runner);
+export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string): Promise<Verdict> {
+  const outcome = await analyzeStored(db, store, job.recordingId);
   return db.transaction(async (trx) => {
     if (!(await stillOwned(trx, job.id, workerId))) return { kind: 'lost' as const };
     await trx('recordings').where({ id: job.recordingId }).forUpdate().first('id');
@@ -60,8 +57,8 @@ export async function processClaimedJob(db: Knex, store: RawFileStore, job: Clai
       await finishJob(trx, job.id, 'failed', outcome.problem.message);
       return { kind: 'failed' as const, message: outcome.problem.message };
     }
-    await writeResults(trx, job.recordingId, outcome.out);
+    await writeResults(trx, job.recordingId, outcome.prepared);
     await finishJob(trx, job.id, 'done', null);
-    return { kind: 'ready' as const, swings: outcome.out.result.swings.length };
+    return { kind: 'ready' as const, swings: outcome.prepared.result.swings.length };
   });
 }

@@ -23,6 +23,7 @@ export function startAppWorker(): Worker | null {
     db,
     store: getStore(),
     runner,
+    databaseUrl: env.DATABASE_URL,
     pollMs: env.WORKER_POLL_MS,
     lockTimeoutS: env.JOB_LOCK_TIMEOUT_S,
     log: (message) => console.error(`[stanceline worker] ${message}`),

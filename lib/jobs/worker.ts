@@ -14,8 +14,13 @@ export interface WorkerOptions {
   pollMs: number;
   lockTimeoutS: number;
   workerId?: string;
-  /** where the analysis runs: the app's thread pool, or (default) this thread for tests and scripts */
+  /**
+   * Where each job runs: the app's thread pool (task "process-job", which opens its own connections from
+   * `databaseUrl` and the store's config), or (default) this thread with `db` and `store`, for tests and scripts.
+   */
   runner?: TaskRunner;
+  /** the database the pool's threads connect to; required with `runner` */
+  databaseUrl?: string;
   log?: (message: string) => void;
 }
 
@@ -31,17 +36,25 @@ export function newWorkerId(): string {
   return `${hostname()}:${process.pid}:${randomBytes(3).toString('hex')}`;
 }
 
+function threadDatabaseUrl(options: WorkerOptions): string {
+  if (!options.databaseUrl) throw new Error('a worker with a thread pool needs databaseUrl for its threads');
+  return options.databaseUrl;
+}
+
 /** Claims and runs one job; null when the queue had nothing due. */
 export async function runOneJob(options: WorkerOptions & { workerId: string }): Promise<{ job: ClaimedJob; verdict: Verdict | 'retry' | 'failed' | 'lost' } | null> {
   const { db, store, workerId, lockTimeoutS } = options;
   const job = await claimNextJob(db, { workerId, lockTimeoutS });
   if (!job) return null;
-  // With the app's pool the analysis runs in a worker thread and heartbeats fire throughout. With the inline runner
-  // (tests, scripts) it is synchronous and heartbeats only fire between awaits, so the lock timeout must exceed the
+  // With the app's pool the whole job runs in a worker thread and heartbeats fire throughout. On this thread (tests,
+  // scripts) the analysis is synchronous and heartbeats only fire between awaits, so the lock timeout must exceed the
   // longest analysis (60 s default vs ~2 s for an hour at 100 Hz).
   const timer = setInterval(() => void heartbeat(db, job.id, workerId).catch(() => undefined), Math.max(1000, (lockTimeoutS * 1000) / 3));
   try {
-    return { job, verdict: await processClaimedJob(db, store, job, workerId, options.runner) };
+    const verdict = options.runner
+      ? await options.runner.runTask('process-job', { job, workerId, databaseUrl: threadDatabaseUrl(options), store: store.config })
+      : await processClaimedJob(db, store, job, workerId);
+    return { job, verdict };
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
     options.log?.(`job ${job.id} (recording ${job.recordingId}) attempt ${job.attempts} failed: ${message}`);

@@ -1,16 +1,19 @@
 // Writes one recording's analysis in a single transaction: swings, their events (auto), values at the events,
 // phase metrics, each swing's full-rate window (swing_series), the display series, the parameters and the
-// algorithm version. The automatic results of an earlier run are replaced; the coach's work is carried over to the
+// algorithm version. The per-sample work (windows, display series, the viewer's per-swing parts as JSON text) was
+// done where the analysis ran (lib/jobs/prepare-results.ts), so this runs on the server's event loop without
+// holding it up: it assembles text and sends statements. The automatic results of an earlier run are replaced; the coach's work is carried over to the
 // swing that now covers it (by impact time): manual event corrections (flagged `misfit` when they fall outside
 // that swing or out of event order), labels, "not a swing" (hidden), annotations and the correction audit. A swing
 // with such work that the new run no longer finds is kept, marked `stale`, with its old numbers and window, so no
 // manual work is lost silently.
 import type { Knex } from 'knex';
-import { EVENT_NAMES, type AnalysisOutput, type EventName, type SwingResult } from '@/lib/signal';
+import { EVENT_NAMES, type EventName, type SwingResult } from '@/lib/signal';
+import { insertInBatches } from '@/lib/db/batch';
 import { recomputeSwing } from '@/lib/swings/recompute';
 import { storeRecordingPayloads } from '@/lib/swings/payload-build';
-import { cutSwingSeries, nearestSample, type StoredSwingSeries } from '@/lib/swings/stored-series';
-import { displaySeries } from './display-series';
+import { parseStoredSeries } from '@/lib/swings/stored-series';
+import type { PreparedAnalysis } from './prepare-results';
 
 const finiteOrNull = (v: number) => (Number.isFinite(v) ? v : null);
 
@@ -48,7 +51,7 @@ const phaseRow = (swingId: number, p: SwingResult['phases'][number]) => ({
   mean_lead_pct: finiteOrNull(p.mean_lead_pct),
 });
 
-export async function writeResults(trx: Knex.Transaction, recordingId: number, out: AnalysisOutput): Promise<void> {
+export async function writeResults(trx: Knex.Transaction, recordingId: number, out: PreparedAnalysis): Promise<void> {
   const swings = out.result.swings;
   const oldSwings: OldSwing[] = await trx('swings').where({ recording_id: recordingId, stale: false }).select('id', 'start_s', 'end_s', 'impact_source', 'tempo_ratio', 'hidden');
   const oldIds = oldSwings.map((s) => s.id);
@@ -80,9 +83,12 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
   await trx('swings').where({ recording_id: recordingId }).andWhere({ stale: false }).delete();
   await trx('recording_series').where({ recording_id: recordingId }).delete();
 
-  const ids: number[] = [];
-  for (const s of swings) {
-    const [id] = await trx('swings').insert({
+  // one statement for all found swings, then their ids by number (few round trips: on a busy server every
+  // await of this transaction waits behind the requests being served)
+  await insertInBatches(
+    trx,
+    'swings',
+    swings.map((s) => ({
       recording_id: recordingId,
       swing_index: s.index,
       start_s: s.start_s,
@@ -93,9 +99,13 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
       forward_press_s: s.forward_press ? s.forward_press.time_s : null,
       forward_press_mm: s.forward_press ? finiteOrNull(s.forward_press.size_mm) : null,
       promoted: s.promoted ?? null,
-    });
-    ids.push(Number(id));
+    })),
+  );
+  const idByIndex = new Map<number, number>();
+  if (swings.length > 0) {
+    for (const r of await trx('swings').where({ recording_id: recordingId, stale: false }).select('id', 'swing_index')) idByIndex.set(Number(r.swing_index), Number(r.id));
   }
+  const ids = swings.map((s) => idByIndex.get(s.index)!);
 
   const manualByOld = new Map<number, Map<EventName, number>>();
   for (const m of manual) {
@@ -109,17 +119,16 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
   const values: Row[] = [];
   const phases: Row[] = [];
   const windows: Row[] = [];
-  const known = new Map<number, StoredSwingSeries>(); // swing id -> its window, for the viewer payloads
-  const t = out.series.time;
+  // swing id -> the viewer's per-swing parts the thread made at the automatic events; a swing with carried
+  // corrections gets its parts built from the stored rows instead (storeRecordingPayloads)
+  const parts = new Map<number, { seriesJson: string; framesJson: string }>();
   for (const [k, s] of swings.entries()) {
     const swingId = ids[k];
-    const from = nearestSample(t, s.start_s);
-    const to = nearestSample(t, s.end_s);
-    const stored = cutSwingSeries(out.series, from, to, { sensorIds: out.sensorWindows.sensorIds, forces: out.sensorWindows.forces[k] ?? [] });
-    windows.push({ swing_id: swingId, sample_rate_hz: stored.sampleRateHz, samples: stored.time.length, data: JSON.stringify(stored) });
-    known.set(swingId, stored);
+    const window = out.windows[k];
+    windows.push({ swing_id: swingId, sample_rate_hz: window.sampleRateHz, samples: window.samples, data: window.data });
 
     const manualTimes = carried.get(k);
+    if (!manualTimes) parts.set(swingId, window);
     const times = { ...s.events };
     if (manualTimes) for (const [name, time] of manualTimes) times[name] = time;
     const bad = manualTimes ? misfits(times, s.start_s, s.end_s) : new Set<EventName>();
@@ -128,7 +137,7 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     let numbers: Pick<SwingResult, 'at_events' | 'phases' | 'tempo_ratio'> = s;
     if (manualTimes && bad.size === 0) {
       try {
-        const r = recomputeSwing(stored, times);
+        const r = recomputeSwing(parseStoredSeries(window.data), times);
         numbers = { at_events: r.atEvents, phases: r.phases, tempo_ratio: r.tempoRatio };
       } catch (error) {
         if (!(error instanceof RangeError)) throw error;
@@ -180,33 +189,22 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
   }
   for (const old of oldSwings) if (old.hidden && newId.has(old.id)) await trx('swings').where({ id: newId.get(old.id) }).update({ hidden: true });
 
-  const chunked = async (table: string, rows: Row[], size = 500) => {
-    for (let i = 0; i < rows.length; i += size) await trx(table).insert(rows.slice(i, i + size));
-  };
+  const chunked = (table: string, rows: Row[]) => insertInBatches(trx, table, rows);
   const moved = (rows: Row[]) => rows.filter((r) => newId.has(Number(r.swing_id))).map((r) => ({ ...r, swing_id: newId.get(Number(r.swing_id)) }));
   await chunked('swing_events', events);
   await chunked('swing_event_values', values.map(({ id: _id, ...rest }) => rest));
   await chunked('swing_phase_metrics', phases);
-  await chunked('swing_series', windows, 8); // a window is tens of kB of JSON; keep each statement small
+  await chunked('swing_series', windows);
   await chunked('swing_labels', moved(labels));
   await chunked('swing_annotations', moved(notes)); // same ids, so links to a note survive a reprocess
   await chunked('swing_event_corrections', moved(audit));
 
-  const display = displaySeries(out.series);
-  await trx('recording_series').insert({
-    recording_id: recordingId,
-    method: display.method,
-    buckets: display.buckets,
-    bucket_s: display.bucketS,
-    data: JSON.stringify({ t: display.t, traces: display.traces }),
-  });
+  const display = out.display;
+  await trx('recording_series').insert({ recording_id: recordingId, method: display.method, buckets: display.buckets, bucket_s: display.bucketS, data: display.data });
 
   // the candidates the finder rejected (not the ones inside a found swing): the coach may promote one
   await trx('recording_candidates').where({ recording_id: recordingId }).delete();
-  await chunked(
-    'recording_candidates',
-    out.candidates.filter((c) => !c.accepted && c.reason && c.reason !== 'inside-previous-swing').map((c) => ({ recording_id: recordingId, time_s: t[c.peak], reason: c.reason })),
-  );
+  await chunked('recording_candidates', out.rejected.map((c) => ({ recording_id: recordingId, time_s: c.timeS, reason: c.reason })));
 
   // the processing block exactly as `npm run analyze` prints it; where the golfer's parameters came from (form, file,
   // profile, default) goes with the recording's metadata
@@ -221,5 +219,5 @@ export async function writeResults(trx: Knex.Transaction, recordingId: number, o
     metadata: JSON.stringify({ ...out.result.recording, gaps: out.result.gaps, parameter_sources: out.parameters }),
     processed_at: trx.raw('NOW(3)'),
   });
-  await storeRecordingPayloads(trx, recordingId, known); // after the recording's parameters and overview
+  await storeRecordingPayloads(trx, recordingId, parts); // after the recording's parameters and overview
 }

@@ -6,7 +6,8 @@ import type { RawFileStore } from './types';
 
 export { createLocalStore } from './local';
 export { createS3Store, type S3StoreConfig } from './s3';
-export { assertSafeKey, StorageNotFoundError, type RawFileStore } from './types';
+export { assertSafeKey, StorageNotFoundError, type RawFileStore, type StoreConfig } from './types';
+import type { StoreConfig } from './types';
 export { spoolUpload, type SpooledFile } from './spool';
 
 export function storeFromEnv(env: Pick<ServerEnv, 'STORAGE_DIR' | 'STORAGE_S3_BUCKET' | 'STORAGE_S3_ENDPOINT' | 'STORAGE_S3_REGION' | 'STORAGE_S3_ACCESS_KEY_ID' | 'STORAGE_S3_SECRET_ACCESS_KEY'>): RawFileStore {
@@ -21,6 +22,13 @@ export function storeFromEnv(env: Pick<ServerEnv, 'STORAGE_DIR' | 'STORAGE_S3_BU
     });
   }
   return createLocalStore(env.STORAGE_DIR);
+}
+
+/** The store a StoreConfig describes (a job thread opening the server's store). */
+export function storeFromConfig(config: StoreConfig): RawFileStore {
+  if (config.kind === 'local') return createLocalStore(config.dir);
+  const { kind: _kind, ...s3 } = config;
+  return createS3Store(s3);
 }
 
 const globalForStore = globalThis as typeof globalThis & { __stancelineStore?: RawFileStore };

@@ -14,6 +14,7 @@ export function createLocalStore(dir: string): RawFileStore {
   };
   return {
     description: `local:${root}`,
+    config: { kind: 'local', dir: root },
     async putFile(key, localPath) {
       const target = pathOf(key);
       await mkdir(dirname(target), { recursive: true });

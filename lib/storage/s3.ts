@@ -12,17 +12,9 @@ import {
   PutObjectCommand,
   S3Client,
 } from '@aws-sdk/client-s3';
-import { assertSafeKey, StorageNotFoundError, type RawFileStore } from './types';
+import { assertSafeKey, StorageNotFoundError, type RawFileStore, type S3StoreConfig } from './types';
 
-export interface S3StoreConfig {
-  bucket: string;
-  endpoint?: string;
-  region: string;
-  accessKeyId?: string;
-  secretAccessKey?: string;
-  /** create the bucket when it does not exist (local fakes, first start) */
-  createBucket?: boolean;
-}
+export type { S3StoreConfig };
 
 function isNotFound(error: unknown): boolean {
   const e = error as { name?: string; $metadata?: { httpStatusCode?: number } };
@@ -63,6 +55,7 @@ export function createS3Store(config: S3StoreConfig): RawFileStore {
 
   return {
     description: `s3:${Bucket}${config.endpoint ? ` at ${config.endpoint}` : ''}`,
+    config: { kind: 's3', ...config },
     async putFile(key, localPath, byteSize) {
       assertSafeKey(key);
       await ensureBucket();

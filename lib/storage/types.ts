@@ -1,9 +1,23 @@
 // The raw-file store: where uploaded recordings are kept, byte for byte, before anything parses them.
 import type { Readable } from 'node:stream';
 
+export interface S3StoreConfig {
+  bucket: string;
+  endpoint?: string;
+  region: string;
+  accessKeyId?: string;
+  secretAccessKey?: string;
+  /** create the bucket when it does not exist (local fakes, first start) */
+  createBucket?: boolean;
+}
+
+/** What makes a store, as plain data: another thread (the job pool's) opens the same store from it. */
+export type StoreConfig = { kind: 'local'; dir: string } | ({ kind: 's3' } & S3StoreConfig);
+
 export interface RawFileStore {
   /** "local:/abs/dir" or "s3:bucket", for logs */
   readonly description: string;
+  readonly config: StoreConfig;
   /** Moves a finished local file (a spool file of the upload) into the store under `key`. */
   putFile(key: string, localPath: string, byteSize: number): Promise<void>;
   /**

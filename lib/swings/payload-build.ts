@@ -1,55 +1,29 @@
-// The viewer's heavy, per-swing part of GET /api/swings/:id, the same for every reader of a swing: the columnar
-// full-rate traces, the recording's overview with the candidates the finder passed over, the sensor layout with
-// handedness and stance width, and the per-sensor forces at the current events. Built ONCE per swing by
-// `buildSwingPayload` when the recording is processed (lib/jobs/write-results.ts) and after each event correction
-// (lib/swings/corrections.ts), kept as JSON text in swing_payloads, and spliced into the response as is
+// The viewer's heavy part of GET /api/swings/:id, the same for every reader of a swing, kept as JSON text in two
+// pieces: the recording's part, shared by all its swings (recording_payloads: the overview with the candidates the
+// finder passed over, the sensor layout with handedness and stance width), and the swing's own part
+// (swing_payloads: the columnar full-rate traces and the per-sensor forces at the current events). Built when the
+// recording is processed (lib/jobs/write-results.ts, with the swing parts made in the job thread) and, for the
+// swing's part, after each event correction (lib/swings/corrections.ts); spliced into the response as is
 // (lib/swings/payload.ts). Free of the app's DB client and of server-only (every function takes the connection),
 // because the processing worker also runs outside Next (demo seed, scripts, tests).
 import type { Knex } from 'knex';
-import { ANALYSIS_FALLBACKS, EVENT_NAMES, REJECT_REASONS, type EventName, type RejectReason } from '@/lib/signal';
+import { ANALYSIS_FALLBACKS, EVENT_NAMES, REJECT_REASONS, type RejectReason } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { SwingView } from '@/lib/contracts/swings';
 import { jsonColumn } from '@/lib/db/values';
+import { insertInBatches } from '@/lib/db/batch';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
 import { coarsenDisplay } from './coarsen-display';
-import { nearestSample, parseStoredSeries, type StoredSwingSeries } from './stored-series';
+import { parseStoredSeries, type StoredSwingSeries } from './stored-series';
+import { sensorFramesView, seriesView, swingPartText, type EventTimes } from './payload-view';
+
+export { seriesView, sensorFramesView } from './payload-view';
 
 export type SwingPayload = Pick<SwingView, 'series' | 'overview' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames'>;
 type RecordingPart = Omit<SwingPayload, 'series' | 'sensorFrames'>;
-type EventTimes = { name: EventName; timeS: number }[];
 
-// Display rounding, at what the charts draw and a reader can tell apart: the time axis as first time + step + count
-// (the stored window is on the analysis's uniform grid t0 + i / fs), shares and millimetres to 0.1, COP speed to
-// 1 mm/s (whole numbers, as `npm run analyze` prints speeds).
-const r6 = (v: number) => Math.round(v * 1e6) / 1e6;
 const r3 = (v: unknown) => Math.round(Number(v) * 1000) / 1000 || 0;
 const r1 = (v: number | null) => (v === null ? null : Math.round(v * 10) / 10 || 0);
-const r0 = (v: number | null) => (v === null ? null : Math.round(v) || 0);
-
-export function seriesView(stored: StoredSwingSeries | null): SwingView['series'] {
-  if (!stored || stored.time.length === 0) {
-    return { time: { start: 0, step: 1, count: 0 }, leadPct: [], leadHeelPct: [], trailHeelPct: [], copX: [], copY: [], copSpeed: [] };
-  }
-  const tr = stored.traces;
-  return {
-    time: { start: r6(stored.time[0]), step: 1 / stored.sampleRateHz, count: stored.time.length },
-    leadPct: tr.leadPct.map(r1),
-    leadHeelPct: tr.leadHeelPct.map(r1),
-    trailHeelPct: tr.trailHeelPct.map(r1),
-    copX: tr.copX.map(r1),
-    copY: tr.copY.map(r1),
-    copSpeed: tr.copSpeed.map(r0),
-  };
-}
-
-/** Per-sensor forces at the sample nearest to each event's current time. */
-export function sensorFramesView(stored: StoredSwingSeries | null, events: EventTimes): SwingView['sensorFrames'] {
-  if (!stored || stored.time.length === 0) return [];
-  return events.map((e) => {
-    const i = nearestSample(stored.time, e.timeS);
-    return { timeS: e.timeS, event: e.name, forcesN: Object.fromEntries(stored.sensorIds.map((id, k) => [id, stored.sensorForces[k]?.[i] ?? 0])) };
-  });
-}
 
 async function storedSeriesOf(conn: Knex, swingId: number): Promise<StoredSwingSeries | null> {
   const row = await conn('swing_series').where({ swing_id: swingId }).first('data');
@@ -109,35 +83,54 @@ async function currentEvents(conn: Knex, swingIds: number[]): Promise<Map<number
 }
 
 /**
- * THE payload builder: one swing's viewer payload from what the builders read. Every part of the stored payload is
- * made here (a new part of the viewer payload is added here and in SwingPayload).
+ * The swing's own parts as JSON text: the columnar traces and the sensor forces at the current events. Every part of
+ * the stored payload is made here, in recordingPart or in lib/swings/payload-view.ts (a new part is added there and
+ * in SwingPayload).
  */
-export function buildSwingPayload(shared: RecordingPart, stored: StoredSwingSeries | null, events: EventTimes): SwingPayload {
-  return { series: seriesView(stored), ...shared, sensorFrames: sensorFramesView(stored, events) };
+export function swingPartTexts(stored: StoredSwingSeries | null, events: EventTimes): { seriesJson: string; framesJson: string } {
+  return { seriesJson: JSON.stringify(seriesView(stored)), framesJson: JSON.stringify(sensorFramesView(stored, events)) };
+}
+
+async function storeRecordingPart(conn: Knex, recordingId: number): Promise<string> {
+  const body = JSON.stringify(await recordingPart(conn, recordingId));
+  await conn.raw('INSERT INTO recording_payloads (recording_id, body) VALUES (?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), built_at = CURRENT_TIMESTAMP(3)', [recordingId, body]);
+  return body;
 }
 
 /**
- * (Re)builds the payloads of every swing of a recording inside the caller's transaction. `known` holds windows the
- * caller has in memory (the analysis just made them); the others are read from swing_series.
+ * (Re)builds the recording's shared part and the part of every one of its swings, inside the caller's transaction.
+ * `prepared` holds the swing parts the job thread already made (lib/jobs/prepare-results.ts) for swings whose events
+ * are the automatic ones; the others are built here from swing_series and swing_events.
  */
-export async function storeRecordingPayloads(conn: Knex, recordingId: number, known?: Map<number, StoredSwingSeries>): Promise<void> {
+export async function storeRecordingPayloads(
+  conn: Knex,
+  recordingId: number,
+  prepared?: Map<number, { seriesJson: string; framesJson: string }>,
+): Promise<void> {
+  await storeRecordingPart(conn, recordingId);
   const swingIds = (await conn('swings').where({ recording_id: recordingId }).select('id')).map((r) => Number(r.id));
   if (swingIds.length === 0) return;
-  const [shared, events] = await Promise.all([recordingPart(conn, recordingId), currentEvents(conn, swingIds)]);
+  const events = await currentEvents(conn, swingIds.filter((id) => !prepared?.has(id)));
   const rows = [];
   for (const id of swingIds) {
-    const stored = known?.get(id) ?? (await storedSeriesOf(conn, id));
-    rows.push({ swing_id: id, body: JSON.stringify(buildSwingPayload(shared, stored, events.get(id)!)) });
+    const parts = prepared?.get(id) ?? swingPartTexts(await storedSeriesOf(conn, id), events.get(id)!);
+    rows.push({ swing_id: id, body: swingPartText(parts.seriesJson, parts.framesJson) });
   }
   await conn('swing_payloads').whereIn('swing_id', swingIds).delete();
-  for (let i = 0; i < rows.length; i += 8) await conn('swing_payloads').insert(rows.slice(i, i + 8));
+  await insertInBatches(conn, 'swing_payloads', rows);
 }
 
-/** (Re)builds one swing's payload (after its events moved, or for a swing processed before payloads were stored). */
+/** (Re)builds one swing's own part (after its events moved, or for a swing processed before payloads were stored). */
 export async function storeSwingPayload(conn: Knex, swingId: number): Promise<string> {
-  const swing = await conn('swings').where({ id: swingId }).first('recording_id');
-  const [shared, events, stored] = await Promise.all([recordingPart(conn, Number(swing.recording_id)), currentEvents(conn, [swingId]), storedSeriesOf(conn, swingId)]);
-  const body = JSON.stringify(buildSwingPayload(shared, stored, events.get(swingId)!));
+  const [events, stored] = await Promise.all([currentEvents(conn, [swingId]), storedSeriesOf(conn, swingId)]);
+  const parts = swingPartTexts(stored, events.get(swingId)!);
+  const body = swingPartText(parts.seriesJson, parts.framesJson);
   await conn.raw('INSERT INTO swing_payloads (swing_id, body) VALUES (?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), built_at = CURRENT_TIMESTAMP(3)', [swingId, body]);
   return body;
+}
+
+/** The recording's shared part, built and stored when missing (a recording processed before it was stored apart). */
+export async function recordingPartText(conn: Knex, recordingId: number): Promise<string> {
+  const row = await conn('recording_payloads').where({ recording_id: recordingId }).first('body');
+  return row ? String(row.body) : storeRecordingPart(conn, recordingId);
 }

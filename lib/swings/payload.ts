@@ -1,20 +1,26 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { db } from '@/lib/db/client';
-import { storeSwingPayload } from './payload-build';
+import { recordingPartText, storeSwingPayload } from './payload-build';
 
 // Serving the stored viewer payload (lib/swings/payload-build.ts builds it). The per-reader part (numbers, labels,
 // notes, audit, neighbours, canEdit) is read per request after the role and access checks, and the ETag is taken
 // over the whole body that reader gets, so a stored payload or a 304 never skips them.
 
-/** The stored payload text of a swing; a swing processed before payloads were stored gets one built now. */
-export async function payloadTextOf(swingId: number): Promise<string> {
-  const row = await db('swing_payloads').where({ swing_id: swingId }).first('body');
-  return row ? String(row.body) : storeSwingPayload(db, swingId);
+/**
+ * The stored payload parts of a swing as bytes, from the ones its view query read (`shared`, `swing`; null when
+ * missing): a part missing (a swing processed before payloads were stored apart) is built and stored now.
+ */
+export async function payloadBytesOf(swingId: number, recordingId: number, shared: Buffer | null, swing: Buffer | null): Promise<{ shared: Buffer; swing: Buffer }> {
+  const [sharedBytes, swingBytes] = await Promise.all([
+    shared ?? recordingPartText(db, recordingId).then((t) => Buffer.from(t, 'utf8')),
+    swing ?? storeSwingPayload(db, swingId).then((t) => Buffer.from(t, 'utf8')),
+  ]);
+  return { shared: sharedBytes, swing: swingBytes };
 }
 
 /** A weak validator of one response body (weak, so it stays valid for the gzip and identity encodings). */
-export function etagOf(body: string): string {
+export function etagOf(body: string | Uint8Array): string {
   return `W/"${createHash('sha256').update(body).digest('base64url').slice(0, 27)}"`;
 }
 
@@ -32,9 +38,9 @@ export function matchesEtag(ifNoneMatch: string | null, etag: string): boolean {
  * back here (through the checks) first. Compression (gzip when the client accepts it) is Next's own (`compress`,
  * on by default for `next start`): compressing here as well would encode the body twice.
  */
-export function sendCacheableJson(request: Request, body: string): Response {
+export function sendCacheableJson(request: Request, body: string | Buffer): Response {
   const etag = etagOf(body);
   const headers: Record<string, string> = { ETag: etag, 'Cache-Control': 'private, no-cache', Vary: 'Cookie' };
   if (matchesEtag(request.headers.get('if-none-match'), etag)) return new Response(null, { status: 304, headers });
-  return new Response(body, { status: 200, headers: { ...headers, 'Content-Type': 'application/json; charset=utf-8' } });
+  return new Response(typeof body === 'string' ? body : new Uint8Array(body.buffer as ArrayBuffer, body.byteOffset, body.byteLength), { status: 200, headers: { ...headers, 'Content-Type': 'application/json; charset=utf-8' } });
 }

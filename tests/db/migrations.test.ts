@@ -61,6 +61,8 @@ const APP_TABLES = [
   'payment_events',
   // a recording's videos: original kept, playable mp4, poster, the sync offset
   'videos',
+  // the viewer payload's part shared by every swing of a recording (overview, layout)
+  'recording_payloads',
 ];
 const KNEX_TABLES = ['knex_migrations', 'knex_migrations_lock'];
 // Migrations that change an existing table, newest last (each adds one column): [file name part, table, column].

@@ -36,6 +36,8 @@ const newInvitation = () => ({ email: `matrix-invite-${run}-${++counter}@stancel
 
 // PATCH keeps Ada's seeded stance width, so later tests see the demo data unchanged.
 const cases: Case[] = [
+  // liveness: open to anyone, says nothing about anyone
+  { method: 'GET', path: '/api/health', expected: { none: 200, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
   { method: 'GET', path: '/api/me', expected: { none: 401, admin: 200, coach: 200, coach2: 200, student: 200, researcher: 200 } },
   { method: 'GET', path: '/api/athletes', expected: { none: 401, admin: 403, coach: 200, coach2: 200, student: 200, researcher: 403 } },
   { method: 'POST', path: '/api/athletes', body: newAthlete, expected: { none: 401, admin: 403, coach: 201, coach2: 201, student: 403, researcher: 403 } },
@@ -121,6 +123,7 @@ describe('another coach cannot tell an existing id from an unknown one', () => {
     { what: 'recording', method: 'GET', path: (id) => `/api/recordings/${id}`, id: async () => (await sample()).recordingId },
     { what: 'swing', method: 'GET', path: (id) => `/api/swings/${id}`, id: async () => (await sample()).swingId },
     { what: 'swing (score)', method: 'GET', path: (id) => `/api/swings/${id}/score`, id: async () => (await sample()).swingId },
+    { what: 'swing (overlay list)', method: 'GET', path: (id) => `/api/swings/${id}/overlay-options`, id: async () => (await sample()).swingId },
     { what: 'target', method: 'PATCH', path: (id) => `/api/targets/${id}`, body: { name: 'Probe' }, id: async () => 5 },
     { what: 'drill', method: 'PATCH', path: (id) => `/api/drills/${id}`, body: { name: 'Probe' }, id: async () => 1 },
     { what: 'drill assignment', method: 'PATCH', path: (id) => `/api/drill-assignments/${id}`, body: { dueDate: '2026-12-24' }, id: async () => 1 },

@@ -8,7 +8,7 @@ import { errorResponseSchema } from '@/lib/contracts/errors';
 import { importProfileCreatedSchema, importProfilesResponseSchema } from '@/lib/contracts/import-profiles';
 import { meResponseSchema } from '@/lib/contracts/me';
 import { recordingViewSchema, sessionRecordingsSchema } from '@/lib/contracts/recordings';
-import { swingViewResponseSchema } from '@/lib/contracts/swings';
+import { overlayOptionsResponseSchema, swingViewResponseSchema } from '@/lib/contracts/swings';
 import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
 import { outcomeSessionsResponseSchema, rankingResponseSchema, sessionShotsSchema, shotProfilesResponseSchema } from '@/lib/contracts/shots';
 import { userListResponseSchema } from '@/lib/contracts/users';
@@ -88,6 +88,7 @@ describe('API answers match lib/contracts', () => {
     await conforms(coach, `/api/sessions/${sample.sessionId}/recordings`, sessionRecordingsSchema);
     await conforms(coach, `/api/swings/${sample.swingId}`, swingViewResponseSchema);
     await conforms(coach, `/api/swings/${sample.swingId}/score`, scoreResponseSchema);
+    await conforms(coach, `/api/swings/${sample.swingId}/overlay-options`, overlayOptionsResponseSchema);
   });
 
   it('targets (list, create, edit)', async () => {

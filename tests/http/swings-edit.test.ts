@@ -6,7 +6,7 @@ import { promisify } from 'node:util';
 import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
-import { swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
+import { overlayOptionsResponseSchema, swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
 import { timeAxis } from '@/components/swings/swing-view-model';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
@@ -87,8 +87,12 @@ describe('GET /api/swings/:id for the viewer', () => {
     expect(Math.abs(s.series.leadPct[i]! - row.leadPct!)).toBeLessThanOrEqual(0.051);
     expect(s.overview.time.length).toBeGreaterThan(time.length / 10);
     expect(s.siblings).toMatchObject({ previousId: null, nextId: swingIds[1] });
-    expect(s.siblings.sameAthlete.map((x) => x.id)).toContain(swingIds[1]);
-    expect(s.siblings.sameAthlete.map((x) => x.id)).not.toContain(swingIds[0]);
+    const overlay = overlayOptionsResponseSchema.parse((await send('coach', 'GET', `/api/swings/${swingIds[0]}/overlay-options`)).body).options;
+    expect(overlay.map((x) => x.id)).toContain(swingIds[1]);
+    expect(overlay.map((x) => x.id)).not.toContain(swingIds[0]);
+    // the student whose swing it is reads the same list; another coach gets the same 404 as an unknown id
+    expect((await send('student', 'GET', `/api/swings/${swingIds[0]}/overlay-options`)).status).toBe(200);
+    expect((await send('coach2', 'GET', `/api/swings/${swingIds[0]}/overlay-options`)).status).toBe(404);
     expect(s.layout.sensors).toHaveLength(16);
     expect(s).toMatchObject({ handedness: 'right', stanceWidthMm: 380, canEdit: true, corrections: [], annotations: [] });
     expect(s.labels).toEqual({ club: null, strike: null, flight: null, tags: [], rating: null, notASwing: false });
@@ -226,7 +230,8 @@ describe('labels and not-a-swing', () => {
     expect((await send('coach', 'PATCH', `/api/swings/${swingIds[1]}`, { labels: { notASwing: true } })).status).toBe(200);
     expect(await hidden(swingIds[1])).toBe(true);
     expect((await getSwing('coach', swingIds[1])).labels.notASwing).toBe(true);
-    expect((await getSwing('coach', swingIds[0])).siblings.sameAthlete.map((x) => x.id)).not.toContain(swingIds[1]);
+    const overlay = overlayOptionsResponseSchema.parse((await send('coach', 'GET', `/api/swings/${swingIds[0]}/overlay-options`)).body).options;
+    expect(overlay.map((x) => x.id)).not.toContain(swingIds[1]);
     expect((await getSwing('coach', swingIds[0])).siblings.nextId).toBe(swingIds[1]); // still reachable by previous/next
     expect((await send('coach', 'PATCH', `/api/swings/${swingIds[1]}`, { labels: { notASwing: false } })).status).toBe(200);
     expect(await hidden(swingIds[1])).toBe(false);

@@ -9,7 +9,7 @@ import { promoteCandidate } from '@/lib/recordings/promote';
 import { getRecordingView } from '@/lib/recordings/views';
 import { generateSession } from '@/lib/signal/synthetic';
 import { createLocalStore } from '@/lib/storage';
-import { insertRecording, resetDemo, tempDir, testDb } from './support/recordings';
+import { databaseUrl, insertRecording, resetDemo, tempDir, testDb } from './support/recordings';
 
 // The job pool's worker threads (lib/jobs/pool.ts, the esbuild bundle .build/job-thread.mjs) must store
 // exactly what the same job stored when it ran on the main thread: every row of every result table, every byte of
@@ -64,7 +64,7 @@ async function both(content: string | Buffer, options = {}) {
   // a session holds a file once (unique sha256); mark the first copy so the same bytes can be uploaded again
   await db('recordings').where({ id: onMain.recordingId }).update({ sha256: '0'.repeat(64) });
   const inThread = await insertRecording(db, store, content, options, 'thread.csv');
-  expect(await drainQueue({ db, store, workerId: 'thread', pollMs: 50, lockTimeoutS: 30, runner: pool })).toBe(1);
+  expect(await drainQueue({ db, store, workerId: 'thread', pollMs: 50, lockTimeoutS: 30, runner: pool, databaseUrl: databaseUrl() })).toBe(1);
   return { main: await stored(onMain.recordingId), thread: await stored(inThread.recordingId) };
 }
 
@@ -76,7 +76,7 @@ describe('analysis in worker threads', () => {
   });
 
   it('refuses an unknown task by name, in the thread as well', async () => {
-    await expect(pool.runTask('no-such-task' as 'analyze-recording', {} as never)).rejects.toThrow(/unknown task "no-such-task"/);
+    await expect(pool.runTask('no-such-task' as 'process-job', {} as never)).rejects.toThrow(/unknown task "no-such-task"/);
   });
 
   it('a generated golf session: the same stored rows as on the main thread', async () => {
@@ -102,15 +102,15 @@ describe('analysis in worker threads', () => {
     expect(thread).toEqual(main);
   });
 
-  it('a coach’s promoted candidate (passed to the thread with the bytes): the same stored rows', async () => {
+  it('a coach’s promoted candidate (read by the thread from the database): the same stored rows', async () => {
     // walking before each swing gives rejected candidates (tests/lib/candidate-promotion.test.ts)
     const golf = generateSession({ seed: 17, sampleRateHz: 100, sensorsPerFoot: 8, units: 'N', handedness: 'right', stanceWidthMm: 400, swings: 2, withMarker: false, distractors: ['walk'] }).csv();
     const run = async (name: string, runner?: TaskRunner) => {
       const { recordingId } = await insertRecording(db, store, golf, {}, `${name}.csv`);
-      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner })).toBe(1);
+      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner, databaseUrl: databaseUrl() })).toBe(1);
       const candidate = (await getRecordingView(recordingId))!.candidates[0];
       await promoteCandidate(recordingId, 2, { timeS: candidate.timeS });
-      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner })).toBe(1);
+      expect(await drainQueue({ db, store, workerId: name, pollMs: 50, lockTimeoutS: 30, runner, databaseUrl: databaseUrl() })).toBe(1);
       await db('recordings').where({ id: recordingId }).update({ sha256: name === 'main' ? '0'.repeat(64) : '1'.repeat(64) });
       return stored(recordingId);
     };

@@ -1,12 +1,13 @@
-// The registry of tasks the job pool (lib/jobs/pool.ts) can run in its worker threads. Each entry is a pure
-// function of a structured-clonable payload (typed arrays, plain objects; no class instances, no functions, no
-// database or store handles) to a structured-clonable result. To add one: write lib/jobs/tasks/<name>.ts, add it
+// The registry of tasks the job pool (lib/jobs/pool.ts) can run in its worker threads. Each entry is a function of
+// a structured-clonable payload (typed arrays, plain objects; no class instances, no functions, no database or store
+// handles: a task that needs them opens its own from plain data, as "process-job" does) to a structured-clonable
+// result. To add one: write lib/jobs/tasks/<name>.ts, add it
 // here, and list the file in scripts/build-bundles.mjs (the `job-thread` bundle's inputs). DEVELOPERS.md "Job pool".
-import { analyzeRecordingTask } from './analyze-recording';
+import { processJobTask } from './process-job';
 import { analyzeWindowTask } from './analyze-window';
 
 export const TASKS = {
-  'analyze-recording': analyzeRecordingTask,
+  'process-job': processJobTask,
   'analyze-window': analyzeWindowTask,
 } as const;
 

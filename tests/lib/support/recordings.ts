@@ -12,8 +12,12 @@ import { enqueueRecording } from '@/lib/jobs/queue';
 import type { RecordingOptions } from '@/lib/recordings/options';
 import type { RawFileStore } from '@/lib/storage/types';
 
+export function databaseUrl(): string {
+  return process.env.DATABASE_URL || inject('databaseUrl');
+}
+
 export function testDb(): Knex {
-  return knex(knexConfig(process.env.DATABASE_URL || inject('databaseUrl')));
+  return knex(knexConfig(databaseUrl()));
 }
 
 export async function resetDemo(db: Knex): Promise<void> {

@@ -1,5 +1,5 @@
 import { requireRole } from '@/lib/auth/roles';
-import { getSwingForViewer, swingViewText } from '@/lib/db/swings';
+import { getSwingForViewer, swingViewBytes } from '@/lib/db/swings';
 import { json, parseId, readJson, withErrors } from '@/lib/http';
 import { requireSwing } from '@/lib/auth/access';
 import { patchSwing } from '@/lib/swings/patch';
@@ -18,7 +18,7 @@ type Context = { params: Promise<{ id: string }> };
 export const GET = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireRole('coach', 'student');
   const id = parseId((await params).id);
-  return sendCacheableJson(request, await swingViewText(viewer, id));
+  return sendCacheableJson(request, await swingViewBytes(viewer, id));
 });
 
 // JSON { events?: { top: 12.34, ... }, resetEvents?: [...] | 'all', labels?: { club, strike, flight, tags, rating, notASwing } }.

@@ -8,13 +8,13 @@ import { scaleLinear } from 'd3';
 import { useState, type MouseEvent } from 'react';
 import { CHART_COLOURS, TONE_STYLE } from '@/components/charts/lib/palette';
 import { linePath } from '@/components/charts/lib/paths';
-import type { SwingView } from '@/lib/contracts/swings';
+import type { RecordingOverview as OverviewData, SwingView } from '@/lib/contracts/swings';
 
 const W = 1000;
 const H = 40;
 
 export interface RecordingOverviewProps {
-  overview: SwingView['overview'];
+  overview: OverviewData;
   siblings: SwingView['siblings'];
   window: { startS: number; endS: number };
   onJump: (t: number) => void;
@@ -80,7 +80,7 @@ export function RecordingOverview({ overview, siblings, window: win, onJump, rec
   );
 }
 
-type Candidate = NonNullable<SwingView['overview']['candidates']>[number];
+type Candidate = NonNullable<OverviewData['candidates']>[number];
 
 /** The moves not counted as swings (dashed marks above), each with its reason; a coach may count one. */
 function CandidateList({ candidates, recordingId, canEdit }: { candidates: Candidate[]; recordingId?: number; canEdit: boolean }) {

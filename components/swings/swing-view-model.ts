@@ -2,7 +2,7 @@
 // typed arrays, events as a record). Pure: used by the client viewer and the server-rendered lesson summary.
 import type { SensorFrames, SwingEvents, TraceSeries } from '@/components/charts';
 import type { SensorLayout } from '@/lib/signal/types';
-import { eventNames, type SwingDetail, type SwingView, type TimeAxis } from '@/lib/contracts/swings';
+import { eventNames, type RecordingOverview, type SwingDetail, type SwingView, type TimeAxis } from '@/lib/contracts/swings';
 
 const toArray = (a: (number | null)[]) => Float64Array.from(a, (v) => (v === null ? NaN : v));
 
@@ -30,7 +30,7 @@ export function traceSeries(s: SwingView['series']): TraceSeries {
  * The COP's side-to-side position is not in it (the COP path stays on the swing's own series): NaN, never drawn.
  * null when the overview has fewer than two points.
  */
-export function wholeTraceSeries(o: SwingView['overview']): TraceSeries | null {
+export function wholeTraceSeries(o: RecordingOverview): TraceSeries | null {
   if (o.time.length < 2) return null;
   return {
     time: Float64Array.from(o.time),

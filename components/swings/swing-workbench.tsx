@@ -19,7 +19,7 @@ import { PhaseTable } from './phase-table';
 import { RecordingOverview } from './recording-overview';
 import { CorrectionLog } from './correction-log';
 import { errorText, patchSwing, swingUrl } from './swing-api';
-import { swingViewResponseSchema, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
+import { recordingOverviewResponseSchema, swingViewResponseSchema, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
 import { SwingFacts } from './swing-facts';
 import { eventRecord, movedEvents, sensorFrames, sensorLayout, traceSeries, wholeTraceSeries } from './swing-view-model';
 import { BandPicker } from '@/components/bands/band-picker';
@@ -29,6 +29,7 @@ import { SwingVideos } from '@/components/videos/swing-videos';
 import { nearestIndex } from '@/lib/signal/nearest';
 
 const fetchSwing = fetchJson(swingViewResponseSchema);
+const fetchOverview = fetchJson(recordingOverviewResponseSchema);
 
 const MemoPhaseTable = memo(PhaseTable);
 const MemoEventTable = memo(EventTable);
@@ -79,7 +80,10 @@ function Tables({ swing }: { swing: SwingDetail }) {
 
 function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: SwingView) => void; refresh: () => void }) {
   const series = useMemo(() => traceSeries(swing.series), [swing.series]);
-  const whole = useMemo(() => wholeTraceSeries(swing.overview), [swing.overview]);
+  // the whole recording is the recording's, not the swing's: its own request, shared by every swing of the recording
+  const { data: overviewData } = useSWR(`/api/recordings/${swing.recording.id}/overview`, fetchOverview, { revalidateOnFocus: false });
+  const overview = overviewData?.overview ?? null;
+  const whole = useMemo(() => (overview ? wholeTraceSeries(overview) : null), [overview]);
   const saved = useMemo(() => eventRecord(swing.events), [swing.events]);
   const auto = useMemo(() => eventRecord(swing.events, 'autoTimeS'), [swing.events]);
   const frames = useMemo(() => sensorFrames(swing.sensorFrames), [swing.sensorFrames]);
@@ -227,7 +231,11 @@ function Loaded({ swing, setSwing, refresh }: { swing: SwingView; setSwing: (s: 
           <MemoPhaseExplainer phases={swing.phases} />
         </Card>
       )}
-      <MemoRecordingOverview overview={swing.overview} siblings={swing.siblings} window={win} onJump={onJump} recordingId={swing.recording.id} canEdit={canEdit} />
+      {overview ? (
+        <MemoRecordingOverview overview={overview} siblings={swing.siblings} window={win} onJump={onJump} recordingId={swing.recording.id} canEdit={canEdit} />
+      ) : (
+        <Skeleton className="h-24" />
+      )}
       <Card title="Against the target">
         <ScorePanel swingId={swing.id} bandId={bandId} />
       </Card>

@@ -107,17 +107,6 @@ export const swingViewSchema = swingDetailSchema.extend({
     copY: nullableSeries,
     copSpeed: nullableSeries,
   }),
-  /** the whole recording, min/max per display bucket (at most 2,000 points per trace) */
-  overview: z.object({
-    time: z.array(z.number()),
-    leadPct: nullableSeries,
-    copX: nullableSeries,
-    leadHeelPct: nullableSeries,
-    trailHeelPct: nullableSeries,
-    copSpeed: nullableSeries,
-    /** moves the swing finder looked at and did not count, with the reason in plain words */
-    candidates: z.array(z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() })),
-  }),
   /** the previous and next swing of the same recording (GET /api/swings/:id/overlay-options lists the athlete's others) */
   siblings: z.object({
     previousId: z.number().int().nullable(),
@@ -221,3 +210,22 @@ export const overlayOptionSchema = z.object({ id: z.number().int(), label: z.str
 export type OverlayOption = z.infer<typeof overlayOptionSchema>;
 export const overlayOptionsResponseSchema = z.object({ options: z.array(overlayOptionSchema) });
 export type OverlayOptionsResponse = z.infer<typeof overlayOptionsResponseSchema>;
+
+/**
+ * GET /api/recordings/:id/overview: the whole recording for the overview strip and the viewer's "Whole recording"
+ * zoom, min/max per display bucket (at most 2,000 points per trace), with the moves the swing finder passed over.
+ * The same for every swing of the recording, so it is its own (cacheable) request, not part of each swing's.
+ */
+export const recordingOverviewSchema = z.object({
+  time: z.array(z.number()),
+  leadPct: nullableSeries,
+  copX: nullableSeries,
+  leadHeelPct: nullableSeries,
+  trailHeelPct: nullableSeries,
+  copSpeed: nullableSeries,
+  /** moves the swing finder looked at and did not count, with the reason in plain words */
+  candidates: z.array(z.object({ timeS: z.number(), reason: z.string(), reasonText: z.string() })),
+});
+export type RecordingOverview = z.infer<typeof recordingOverviewSchema>;
+export const recordingOverviewResponseSchema = z.object({ overview: recordingOverviewSchema });
+export type RecordingOverviewResponse = z.infer<typeof recordingOverviewResponseSchema>;

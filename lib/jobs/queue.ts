@@ -101,6 +101,7 @@ export async function failRecordingRows(
 ): Promise<void> {
   await trx('swings').where({ recording_id: recordingId }).delete(); // events, values and phases cascade
   await trx('recording_series').where({ recording_id: recordingId }).delete();
+  await trx('recording_payloads').where({ recording_id: recordingId }).delete();
   await trx('recordings').where({ id: recordingId }).update({
     status: 'failed',
     error_message: error.message.slice(0, 2000),

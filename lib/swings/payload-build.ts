@@ -1,7 +1,8 @@
-// The viewer's heavy part of GET /api/swings/:id, the same for every reader of a swing, kept as JSON text in two
-// pieces: the recording's part, shared by all its swings (recording_payloads: the overview with the candidates the
-// finder passed over, the sensor layout with handedness and stance width), and the swing's own part
-// (swing_payloads: the columnar full-rate traces and the per-sensor forces at the current events). Built when the
+// The viewer's heavy part of GET /api/swings/:id, the same for every reader of a swing, kept as JSON text: the
+// recording's part, shared by all its swings (recording_payloads.body: the sensor layout with handedness and stance
+// width; recording_payloads.overview: GET /api/recordings/:id/overview, the whole recording with the candidates the
+// finder passed over), and the swing's own part (swing_payloads: the columnar full-rate traces and the per-sensor
+// forces at the current events). Built when the
 // recording is processed (lib/jobs/write-results.ts, with the swing parts made in the job thread) and, for the
 // swing's part, after each event correction (lib/swings/corrections.ts); spliced into the response as is
 // (lib/swings/payload.ts). Free of the app's DB client and of server-only (every function takes the connection),
@@ -9,7 +10,7 @@
 import type { Knex } from 'knex';
 import { ANALYSIS_FALLBACKS, EVENT_NAMES, REJECT_REASONS, type RejectReason } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
-import type { SwingView } from '@/lib/contracts/swings';
+import type { RecordingOverview, SwingView } from '@/lib/contracts/swings';
 import { jsonColumn } from '@/lib/db/values';
 import { insertInBatches } from '@/lib/db/batch';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
@@ -19,8 +20,7 @@ import { sensorFramesView, seriesView, swingPartText, type EventTimes } from './
 
 export { seriesView, sensorFramesView } from './payload-view';
 
-export type SwingPayload = Pick<SwingView, 'series' | 'overview' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames'>;
-type RecordingPart = Omit<SwingPayload, 'series' | 'sensorFrames'>;
+export type SwingPayload = Pick<SwingView, 'series' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames'>;
 
 const r3 = (v: unknown) => Math.round(Number(v) * 1000) / 1000 || 0;
 const r1 = (v: number | null) => (v === null ? null : Math.round(v * 10) / 10 || 0);
@@ -30,7 +30,7 @@ async function storedSeriesOf(conn: Knex, swingId: number): Promise<StoredSwingS
   return row ? parseStoredSeries(row.data) : null;
 }
 
-async function overviewView(conn: Knex, recordingId: number): Promise<SwingView['overview']> {
+async function overviewView(conn: Knex, recordingId: number): Promise<RecordingOverview> {
   const row = await conn('recording_series').where({ recording_id: recordingId }).first('bucket_s', 'data');
   const candidates = (await conn('recording_candidates').where({ recording_id: recordingId }).orderBy('time_s').select('time_s', 'reason')).map((c) => ({
     timeS: r3(c.time_s),
@@ -67,12 +67,6 @@ async function layoutView(conn: Knex, recordingId: number): Promise<Pick<SwingVi
   };
 }
 
-/** What every swing of one recording shares. */
-async function recordingPart(conn: Knex, recordingId: number): Promise<RecordingPart> {
-  const [overview, layout] = await Promise.all([overviewView(conn, recordingId), layoutView(conn, recordingId)]);
-  return { overview, ...layout };
-}
-
 async function currentEvents(conn: Knex, swingIds: number[]): Promise<Map<number, EventTimes>> {
   const rows = swingIds.length ? await conn('swing_events').whereIn('swing_id', swingIds).select('swing_id', 'name', 'time_s') : [];
   const out = new Map<number, EventTimes>();
@@ -91,10 +85,15 @@ export function swingPartTexts(stored: StoredSwingSeries | null, events: EventTi
   return { seriesJson: JSON.stringify(seriesView(stored)), framesJson: JSON.stringify(sensorFramesView(stored, events)) };
 }
 
-async function storeRecordingPart(conn: Knex, recordingId: number): Promise<string> {
-  const body = JSON.stringify(await recordingPart(conn, recordingId));
-  await conn.raw('INSERT INTO recording_payloads (recording_id, body) VALUES (?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), built_at = CURRENT_TIMESTAMP(3)', [recordingId, body]);
-  return body;
+/** Builds and stores what every swing of the recording shares: its part of the swing view, and the overview. */
+async function storeRecordingPart(conn: Knex, recordingId: number): Promise<{ body: string; overview: string }> {
+  const [overview, layout] = await Promise.all([overviewView(conn, recordingId), layoutView(conn, recordingId)]);
+  const texts = { body: JSON.stringify(layout), overview: JSON.stringify(overview) };
+  await conn.raw(
+    'INSERT INTO recording_payloads (recording_id, body, overview) VALUES (?, ?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), overview = VALUES(overview), built_at = CURRENT_TIMESTAMP(3)',
+    [recordingId, texts.body, texts.overview],
+  );
+  return texts;
 }
 
 /**
@@ -129,8 +128,14 @@ export async function storeSwingPayload(conn: Knex, swingId: number): Promise<st
   return body;
 }
 
-/** The recording's shared part, built and stored when missing (a recording processed before it was stored apart). */
+/** The recording's part of the swing view (layout, handedness, stance width), built and stored when missing. */
 export async function recordingPartText(conn: Knex, recordingId: number): Promise<string> {
   const row = await conn('recording_payloads').where({ recording_id: recordingId }).first('body');
-  return row ? String(row.body) : storeRecordingPart(conn, recordingId);
+  return row ? String(row.body) : (await storeRecordingPart(conn, recordingId)).body;
+}
+
+/** The recording's overview as JSON text (GET /api/recordings/:id/overview), built and stored when missing. */
+export async function recordingOverviewText(conn: Knex, recordingId: number): Promise<string> {
+  const row = await conn('recording_payloads').where({ recording_id: recordingId }).first('overview');
+  return row ? String(row.overview) : (await storeRecordingPart(conn, recordingId)).overview;
 }

@@ -1,7 +1,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { db } from '@/lib/db/client';
-import { recordingPartText, storeSwingPayload } from './payload-build';
+import { recordingOverviewText, recordingPartText, storeSwingPayload } from './payload-build';
 
 // Serving the stored viewer payload (lib/swings/payload-build.ts builds it). The per-reader part (numbers, labels,
 // notes, audit, neighbours, canEdit) is read per request after the role and access checks, and the ETag is taken
@@ -17,6 +17,11 @@ export async function payloadBytesOf(swingId: number, recordingId: number, share
     swing ?? storeSwingPayload(db, swingId).then((t) => Buffer.from(t, 'utf8')),
   ]);
   return { shared: sharedBytes, swing: swingBytes };
+}
+
+/** The GET /api/recordings/:id/overview body as JSON text (the stored overview, built when missing). */
+export async function overviewBodyOf(recordingId: number): Promise<string> {
+  return `{"overview":${await recordingOverviewText(db, recordingId)}}`;
 }
 
 /** A weak validator of one response body (weak, so it stays valid for the gzip and identity encodings). */

@@ -121,6 +121,7 @@ describe('another coach cannot tell an existing id from an unknown one', () => {
     { what: 'session', method: 'GET', path: (id) => `/api/sessions/${id}/recordings`, id: async () => 1 },
     { what: 'session (drill report)', method: 'GET', path: (id) => `/api/sessions/${id}/drill-report`, id: async () => 1 },
     { what: 'recording', method: 'GET', path: (id) => `/api/recordings/${id}`, id: async () => (await sample()).recordingId },
+    { what: 'recording (overview)', method: 'GET', path: (id) => `/api/recordings/${id}/overview`, id: async () => (await sample()).recordingId },
     { what: 'swing', method: 'GET', path: (id) => `/api/swings/${id}`, id: async () => (await sample()).swingId },
     { what: 'swing (score)', method: 'GET', path: (id) => `/api/swings/${id}/score`, id: async () => (await sample()).swingId },
     { what: 'swing (overlay list)', method: 'GET', path: (id) => `/api/swings/${id}/overlay-options`, id: async () => (await sample()).swingId },

@@ -8,7 +8,7 @@ import { errorResponseSchema } from '@/lib/contracts/errors';
 import { importProfileCreatedSchema, importProfilesResponseSchema } from '@/lib/contracts/import-profiles';
 import { meResponseSchema } from '@/lib/contracts/me';
 import { recordingViewSchema, sessionRecordingsSchema } from '@/lib/contracts/recordings';
-import { overlayOptionsResponseSchema, swingViewResponseSchema } from '@/lib/contracts/swings';
+import { overlayOptionsResponseSchema, recordingOverviewResponseSchema, swingViewResponseSchema } from '@/lib/contracts/swings';
 import { scoreResponseSchema, targetResponseSchema, targetsResponseSchema } from '@/lib/contracts/targets';
 import { outcomeSessionsResponseSchema, rankingResponseSchema, sessionShotsSchema, shotProfilesResponseSchema } from '@/lib/contracts/shots';
 import { userListResponseSchema } from '@/lib/contracts/users';
@@ -89,6 +89,7 @@ describe('API answers match lib/contracts', () => {
     await conforms(coach, `/api/swings/${sample.swingId}`, swingViewResponseSchema);
     await conforms(coach, `/api/swings/${sample.swingId}/score`, scoreResponseSchema);
     await conforms(coach, `/api/swings/${sample.swingId}/overlay-options`, overlayOptionsResponseSchema);
+    await conforms(coach, `/api/recordings/${sample.recordingId}/overview`, recordingOverviewResponseSchema);
   });
 
   it('targets (list, create, edit)', async () => {

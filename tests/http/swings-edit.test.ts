@@ -6,7 +6,7 @@ import { promisify } from 'node:util';
 import type { Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seedDemo } from '@/db/demo/seed-demo';
-import { overlayOptionsResponseSchema, swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
+import { overlayOptionsResponseSchema, recordingOverviewResponseSchema, swingViewResponseSchema, type SwingView } from '@/lib/contracts/swings';
 import { timeAxis } from '@/components/swings/swing-view-model';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
@@ -85,7 +85,14 @@ describe('GET /api/swings/:id for the viewer', () => {
     const i = Math.floor(time.length / 2);
     const row = seriesCsv.find((r) => Math.abs(r.time - time[i]) < 0.004)!;
     expect(Math.abs(s.series.leadPct[i]! - row.leadPct!)).toBeLessThanOrEqual(0.051);
-    expect(s.overview.time.length).toBeGreaterThan(time.length / 10);
+    // the whole recording is the recording's own request (the same for every swing of it), with an ETag and 304
+    const overviewRes = await sessions.get('coach')!.fetch(`/api/recordings/${s.recording.id}/overview`);
+    expect(overviewRes.status).toBe(200);
+    const overview = recordingOverviewResponseSchema.parse(await overviewRes.json()).overview;
+    expect(overview.time.length).toBeGreaterThan(time.length / 10);
+    const again = await sessions.get('coach')!.fetch(`/api/recordings/${s.recording.id}/overview`, { headers: { 'if-none-match': overviewRes.headers.get('etag')! } });
+    expect(again.status).toBe(304);
+    expect((await sessions.get('coach2')!.fetch(`/api/recordings/${s.recording.id}/overview`)).status).toBe(404);
     expect(s.siblings).toMatchObject({ previousId: null, nextId: swingIds[1] });
     const overlay = overlayOptionsResponseSchema.parse((await send('coach', 'GET', `/api/swings/${swingIds[0]}/overlay-options`)).body).options;
     expect(overlay.map((x) => x.id)).toContain(swingIds[1]);

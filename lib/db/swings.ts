@@ -68,7 +68,19 @@ async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise
     .where('s.id', swingId)
     .whereNull('r.binned_at')
     .whereNull('p.binned_at');
-  const columns: (string | Knex.Raw)[] = [...DETAIL_COLUMNS];
+  // the swing's events, values at events and phase rows as JSON arrays in the same row (one round trip, not four)
+  const columns: (string | Knex.Raw)[] = [
+    ...DETAIL_COLUMNS,
+    db.raw(
+      "(SELECT JSON_ARRAYAGG(JSON_OBJECT('name', e.name, 'time_s', e.time_s, 'source', e.source, 'auto_time_s', e.auto_time_s, 'misfit', e.misfit)) FROM swing_events e WHERE e.swing_id = s.id) AS events_json",
+    ),
+    db.raw(
+      "(SELECT JSON_ARRAYAGG(JSON_OBJECT('event', v.event, 'lead_pct', v.lead_pct, 'lead_heel_pct', v.lead_heel_pct, 'trail_heel_pct', v.trail_heel_pct, 'cop_x_mm', v.cop_x_mm, 'cop_y_mm', v.cop_y_mm)) FROM swing_event_values v WHERE v.swing_id = s.id) AS values_json",
+    ),
+    db.raw(
+      "(SELECT JSON_ARRAYAGG(JSON_OBJECT('phase', m.phase, 'duration_s', m.duration_s, 'cop_path_mm', m.cop_path_mm, 'peak_cop_speed_mm_s', m.peak_cop_speed_mm_s, 'mean_lead_pct', m.mean_lead_pct)) FROM swing_phase_metrics m WHERE m.swing_id = s.id) AS phases_json",
+    ),
+  ];
   if (view) {
     q.leftJoin('swing_labels as l', 'l.swing_id', 's.id')
       .leftJoin('swing_payloads as sp', 'sp.swing_id', 's.id')
@@ -84,6 +96,9 @@ async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise
       db.raw('CAST(rp.body AS BINARY) AS shared_part'),
       db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index < s.swing_index ORDER BY x.swing_index DESC LIMIT 1) AS previous_id'),
       db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index > s.swing_index ORDER BY x.swing_index ASC LIMIT 1) AS next_id'),
+      // whether the notes and the correction log need a query of their own (most swings have neither)
+      db.raw('EXISTS (SELECT 1 FROM swing_annotations n WHERE n.swing_id = s.id) AS has_notes'),
+      db.raw('EXISTS (SELECT 1 FROM swing_event_corrections c WHERE c.swing_id = s.id) AS has_corrections'),
     );
   }
   const row: Row | undefined = await q.first(columns);
@@ -101,11 +116,11 @@ async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise
 async function swingViewParts(viewer: Viewer, swingId: number): Promise<{ reader: ReaderPart; payload: { shared: Buffer; swing: Buffer } }> {
   const { row, access } = await swingRow(viewer, swingId, true);
   const isCoach = access === 'coach';
-  const [detail, payload, annotations, corrections] = await Promise.all([
-    detailOf(row, swingId),
+  const detail = detailOf(row);
+  const [payload, annotations, corrections] = await Promise.all([
     payloadBytesOf(swingId, Number(row.recording_id), row.shared_part as Buffer | null, row.swing_part as Buffer | null),
-    listAnnotations(swingId, !isCoach),
-    isCoach ? correctionsView(swingId) : Promise.resolve([]),
+    Number(row.has_notes) ? listAnnotations(swingId, !isCoach) : Promise.resolve([]),
+    isCoach && Number(row.has_corrections) ? correctionsView(swingId) : Promise.resolve([]),
   ]);
   const siblings = { previousId: row.previous_id === null ? null : Number(row.previous_id), nextId: row.next_id === null ? null : Number(row.next_id) };
   const labels = labelsOf(row.label_row === null ? undefined : row, detail.hidden);
@@ -133,15 +148,22 @@ export async function getSwingForViewer(viewer: Viewer, swingId: number): Promis
 /** The numbers only (what the swing page's tables show). */
 export async function getSwingDetail(viewer: Viewer, swingId: number): Promise<{ detail: SwingDetail; access: 'coach' | 'student' }> {
   const { row, access } = await swingRow(viewer, swingId, false);
-  return { detail: await detailOf(row, swingId), access };
+  return { detail: detailOf(row), access };
 }
 
-async function detailOf(row: Row, swingId: number): Promise<SwingDetail> {
-  const [events, values, phases] = await Promise.all([
-    db('swing_events').where({ swing_id: swingId }).select('name', 'time_s', 'source', 'auto_time_s', 'misfit'),
-    db('swing_event_values').where({ swing_id: swingId }).select('event', 'lead_pct', 'lead_heel_pct', 'trail_heel_pct', 'cop_x_mm', 'cop_y_mm'),
-    db('swing_phase_metrics').where({ swing_id: swingId }).select('phase', 'duration_s', 'cop_path_mm', 'peak_cop_speed_mm_s', 'mean_lead_pct'),
-  ]);
+/** The rows of a JSON_ARRAYAGG column (null when the subquery found none). */
+function jsonRows<T>(value: unknown): T[] {
+  return jsonColumn<T[]>(value) ?? [];
+}
+
+type EventJson = { name: string; time_s: number; source: 'auto' | 'manual'; auto_time_s: number | null; misfit: number | boolean };
+type ValueJson = { event: string; lead_pct: number | null; lead_heel_pct: number | null; trail_heel_pct: number | null; cop_x_mm: number | null; cop_y_mm: number | null };
+type PhaseJson = { phase: string; duration_s: number | null; cop_path_mm: number | null; peak_cop_speed_mm_s: number | null; mean_lead_pct: number | null };
+
+function detailOf(row: Row): SwingDetail {
+  const events = jsonRows<EventJson>(row.events_json);
+  const values = jsonRows<ValueJson>(row.values_json);
+  const phases = jsonRows<PhaseJson>(row.phases_json);
 
   return {
     id: Number(row.id),
@@ -165,8 +187,10 @@ async function detailOf(row: Row, swingId: number): Promise<SwingDetail> {
     athlete: { id: Number(row.athlete_id), displayName: row.display_name as string, dateOfBirth: toIsoDate(row.date_of_birth) },
     // In event order, not row order.
     events: eventNames
-      .map((name) => ({ name, e: events.find((x) => x.name === name), v: values.find((x) => x.event === name) }))
-      .filter(({ e }) => e !== undefined)
+      .flatMap((name) => {
+        const e = events.find((x) => x.name === name);
+        return e ? [{ name, e, v: values.find((x) => x.event === name) }] : [];
+      })
       .map(({ name, e, v }) => ({
         name,
         timeS: r3(e.time_s) ?? 0,
@@ -180,8 +204,10 @@ async function detailOf(row: Row, swingId: number): Promise<SwingDetail> {
         copYMm: r1(v?.cop_y_mm),
       })),
     phases: phaseNames
-      .map((name) => ({ name, p: phases.find((x) => x.phase === name) }))
-      .filter(({ p }) => p !== undefined)
+      .flatMap((name) => {
+        const p = phases.find((x) => x.phase === name);
+        return p ? [{ name, p }] : [];
+      })
       .map(({ name, p }) => ({
         name,
         durationS: r3(p.duration_s),

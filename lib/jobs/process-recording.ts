@@ -6,7 +6,11 @@
 // connections, so neither the analysis nor the statements of a large result hold up the server's event loop;
 // tests and scripts call it on their own thread.
 import type { Knex } from 'knex';
+import { createReadStream } from 'node:fs';
+import { rm, stat } from 'node:fs/promises';
+import { join } from 'node:path';
 import type { Readable } from 'node:stream';
+import { localCopyName } from '@/lib/storage/spool';
 import { analyzeRecording, SignalInputError } from '@/lib/signal';
 import { analyzeOptionsOf, profileOf, recordingOptionsSchema, resolveLayout, type RecordingOptions } from '@/lib/recordings/options';
 import { readStoredRecording } from '@/lib/recordings/stored-text';
@@ -37,18 +41,38 @@ export async function analyzeSource(source: Readable, options: RecordingOptions,
   }
 }
 
+/** Where a job may find a kept local copy of its raw file (the upload's spool folder on this machine). */
+export interface JobFiles {
+  localCopyDir?: string;
+}
+
+/**
+ * The stored file: the upload's kept local copy when this machine has one of the right size (lib/recordings/upload.ts
+ * keeps it when an object store took a copy), else the store.
+ */
+async function openRaw(store: RawFileStore, recordingId: number, row: { storage_key: string; byte_size: unknown }, files: JobFiles): Promise<Readable> {
+  if (files.localCopyDir) {
+    const path = join(files.localCopyDir, localCopyName(recordingId));
+    const size = await stat(path).then((s) => s.size, () => -1);
+    if (size === Number(row.byte_size)) return createReadStream(path, { highWaterMark: 1 << 20 });
+  }
+  return store.read(row.storage_key);
+}
+
 /** Reads the recording's options, the coach's promotions and the stored file, and analyses it. */
-export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: number): Promise<AnalysisOutcome> {
-  const row = await db('recordings').where({ id: recordingId }).first('storage_key', 'options');
+export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: number, files: JobFiles = {}): Promise<AnalysisOutcome> {
+  const row = await db('recordings').where({ id: recordingId }).first('storage_key', 'byte_size', 'options');
   if (!row) throw new Error(`recording ${recordingId} does not exist`);
   const options = recordingOptionsSchema.parse(jsonColumn(row.options));
   // a coach's promoted candidates are detected again on every analysis (lib/recordings/promote.ts)
   const promote: number[] = (await db('candidate_promotions').where({ recording_id: recordingId }).orderBy('id').pluck('time_s')).map(Number);
-  return analyzeSource(await store.read(row.storage_key), options, promote);
+  return analyzeSource(await openRaw(store, recordingId, row, files), options, promote);
 }
 
-export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string): Promise<Verdict> {
-  const outcome = await analyzeStored(db, store, job.recordingId);
+export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string, files: JobFiles = {}): Promise<Verdict> {
+  const outcome = await analyzeStored(db, store, job.recordingId, files);
+  // the kept copy has served: later processing (a reprocess) reads the store
+  if (files.localCopyDir) await rm(join(files.localCopyDir, localCopyName(job.recordingId)), { force: true });
   return db.transaction(async (trx) => {
     if (!(await stillOwned(trx, job.id, workerId))) return { kind: 'lost' as const };
     await trx('recordings').where({ id: job.recordingId }).forUpdate().first('id');

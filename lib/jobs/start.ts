@@ -3,6 +3,7 @@
 import { createKnex } from '@/lib/db/connection';
 import { getEnv } from '@/lib/env';
 import { getStore } from '@/lib/storage';
+import { spoolDirOf } from '@/lib/storage/spool';
 import { sweepBin } from '@/lib/sessions/bin';
 import { defaultThreads, getTaskPool } from './pool';
 import { sendDueTomorrowReminders } from '@/lib/accounts/drill-mail';
@@ -24,6 +25,7 @@ export function startAppWorker(): Worker | null {
     store: getStore(),
     runner,
     databaseUrl: env.DATABASE_URL,
+    localCopyDir: spoolDirOf(env.STORAGE_DIR),
     pollMs: env.WORKER_POLL_MS,
     lockTimeoutS: env.JOB_LOCK_TIMEOUT_S,
     log: (message) => console.error(`[stanceline worker] ${message}`),

@@ -21,6 +21,8 @@ export interface WorkerOptions {
   runner?: TaskRunner;
   /** the database the pool's threads connect to; required with `runner` */
   databaseUrl?: string;
+  /** the upload spool folder of this machine, where a just-uploaded file's kept copy may wait (lib/storage/spool.ts) */
+  localCopyDir?: string;
   log?: (message: string) => void;
 }
 
@@ -52,8 +54,8 @@ export async function runOneJob(options: WorkerOptions & { workerId: string }): 
   const timer = setInterval(() => void heartbeat(db, job.id, workerId).catch(() => undefined), Math.max(1000, (lockTimeoutS * 1000) / 3));
   try {
     const verdict = options.runner
-      ? await options.runner.runTask('process-job', { job, workerId, databaseUrl: threadDatabaseUrl(options), store: store.config })
-      : await processClaimedJob(db, store, job, workerId);
+      ? await options.runner.runTask('process-job', { job, workerId, databaseUrl: threadDatabaseUrl(options), store: store.config, localCopyDir: options.localCopyDir })
+      : await processClaimedJob(db, store, job, workerId, { localCopyDir: options.localCopyDir });
     return { job, verdict };
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);

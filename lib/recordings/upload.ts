@@ -1,6 +1,6 @@
 import 'server-only';
 import { randomUUID } from 'node:crypto';
-import { rm } from 'node:fs/promises';
+import { rename, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { ZodError } from 'zod';
 import type { Viewer } from '@/lib/auth/viewer';
@@ -10,7 +10,7 @@ import { enqueueRecording } from '@/lib/jobs/queue';
 import { wakeAppWorker } from '@/lib/jobs/start';
 import { getStore } from '@/lib/storage';
 import { requireAthlete } from '@/lib/auth/access';
-import { STALE_SPOOL_MS, sweepStaleSpools } from '@/lib/storage/spool';
+import { localCopyName, spoolDirOf, STALE_SPOOL_MS, sweepStaleSpools } from '@/lib/storage/spool';
 import { uploadFieldsSchema, type UploadFields } from './fields';
 import { BadUploadError, readMultipart, type ReceivedFile } from './multipart';
 import type { RecordingOptions } from './options';
@@ -99,6 +99,8 @@ async function keepFile(viewer: Viewer, athleteId: number, sessionId: number, fi
       await enqueueRecording(trx, Number(recordingId), getEnv().JOB_MAX_ATTEMPTS);
       return Number(recordingId);
     });
+    // an object store copied the spool file: keep it for the first processing on this machine (no second download)
+    await rename(file.path, join(spoolDir(), localCopyName(id))).catch(() => undefined);
     return { id, filename: file.filename, status: 'received', duplicate: false, sessionId };
   } catch (error) {
     await store.remove(key).catch(() => undefined);
@@ -111,7 +113,7 @@ async function keepFile(viewer: Viewer, athleteId: number, sessionId: number, fi
 
 /** Where uploads are spooled while they arrive (removed on every exit path of a request). */
 export function spoolDir(): string {
-  return join(getEnv().STORAGE_DIR, '.incoming');
+  return spoolDirOf(getEnv().STORAGE_DIR);
 }
 
 const globalForSweeper = globalThis as typeof globalThis & { __stancelineSpoolSweeper?: NodeJS.Timeout };

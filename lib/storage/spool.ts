@@ -48,9 +48,23 @@ export async function spoolUpload(source: Readable, spoolDir: string): Promise<S
 /** A spool file not written to for this long belongs to a request that ended without cleaning up (a crash). */
 export const STALE_SPOOL_MS = 10 * 60 * 1000;
 
+/** Where uploads are spooled while they arrive, under the storage folder (removed on every exit path of a request). */
+export function spoolDirOf(storageDir: string): string {
+  return join(storageDir, '.incoming');
+}
+
 /**
- * Removes `*.part` spool files in `spoolDir` untouched for `olderThanMs` (run at server start and then every so
- * often). The age keeps uploads that another app instance sharing the folder is still writing. Returns how many.
+ * The name of the kept copy of a just-uploaded recording's raw file in the spool folder: the bytes the object store
+ * also holds, kept on this machine so the first processing reads them from disk instead of downloading them again
+ * (lib/jobs/process-recording.ts removes it after that processing; the sweep below, after STALE_SPOOL_MS).
+ */
+export function localCopyName(recordingId: number): string {
+  return `recording-${recordingId}.copy`;
+}
+
+/**
+ * Removes `*.part` spool files and `*.copy` kept copies in `spoolDir` untouched for `olderThanMs` (run at server
+ * start and then every so often). The age keeps uploads that another app instance sharing the folder is still writing. Returns how many.
  */
 export async function sweepStaleSpools(spoolDir: string, olderThanMs = STALE_SPOOL_MS, now = Date.now()): Promise<number> {
   let names: string[];
@@ -61,7 +75,7 @@ export async function sweepStaleSpools(spoolDir: string, olderThanMs = STALE_SPO
   }
   let removed = 0;
   for (const name of names) {
-    if (!name.endsWith('.part')) continue;
+    if (!name.endsWith('.part') && !name.endsWith('.copy')) continue;
     const path = join(spoolDir, name);
     try {
       if (now - (await stat(path)).mtimeMs < olderThanMs) continue;

@@ -13,6 +13,8 @@ export interface ProcessJobPayload {
   workerId: string;
   databaseUrl: string;
   store: StoreConfig;
+  /** the upload spool folder, where a kept copy of the raw file may wait */
+  localCopyDir?: string;
 }
 
 /** A small pool per thread: one transaction at a time, plus the reads before it. */
@@ -35,5 +37,5 @@ function threadStore(config: StoreConfig): RawFileStore {
 }
 
 export function processJobTask(payload: ProcessJobPayload): Promise<Verdict> {
-  return processClaimedJob(threadDb(payload.databaseUrl), threadStore(payload.store), payload.job, payload.workerId);
+  return processClaimedJob(threadDb(payload.databaseUrl), threadStore(payload.store), payload.job, payload.workerId, { localCopyDir: payload.localCopyDir });
 }

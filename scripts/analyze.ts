@@ -5,7 +5,6 @@
 // A usage error (unknown option, bad option value): one line on stderr plus the usage, exit 2.
 import { createReadStream, createWriteStream, readFileSync } from 'node:fs';
 import { once } from 'node:events';
-import { isMainThread } from 'node:worker_threads';
 import { z } from 'zod';
 import {
   analyzeRecording,
@@ -20,7 +19,8 @@ import {
   type ImportProfile,
   type SensorLayout,
 } from '@/lib/signal';
-import { readParallel, runParseWorker } from './analyze-parallel';
+import { dropEarlyWorker, readParallel } from './analyze-parallel';
+import { readFileBytes } from './analyze-read';
 
 const USAGE =
   'usage: npm run -s analyze -- FILE [--layout LAYOUT.json] [--profile PROFILE.json] [--handedness right|left] ' +
@@ -95,9 +95,14 @@ async function run(args: Args): Promise<AnalysisOutput> {
   const profile: ImportProfile | undefined = args.profile ? parseProfile(readJson(args.profile, 'profile')) : undefined;
   let layout: SensorLayout | undefined = args.layout ? parseLayout(readJson(args.layout, 'layout')) : undefined;
 
-  // a large file without a profile is read on two threads when that works out (scripts/analyze-parallel.ts); the
-  // one-thread reader otherwise, and for every error, so messages stay exactly its own
-  const raw = (!profile && (await readParallel(args.file, new URL(import.meta.url)).catch(() => null))) || (await readOneThread(args.file, profile));
+  // a large file without a profile is read on two threads when that works out (scripts/analyze-parallel.ts), else as
+  // bytes on this thread (scripts/analyze-read.ts); the stream reader for anything else and for every error, so
+  // messages stay exactly its own
+  if (profile) dropEarlyWorker();
+  const raw =
+    (!profile && (await readParallel(args.file, new URL(import.meta.url)).catch(() => null))) ||
+    readFileBytes(args.file, profile) ||
+    (await readOneThread(args.file, profile));
 
   if (!layout) {
     const id = raw.metadata.layout;
@@ -109,6 +114,8 @@ async function run(args: Args): Promise<AnalysisOutput> {
     handedness: args.handedness,
     stanceWidthMm: args.stanceWidthMm,
     cutoffHz: args.cutoffHz,
+    reuseChannels: true, // raw is read for this analysis only
+    sensorWindows: false, // the command prints no per-sensor data
   });
 }
 
@@ -147,6 +154,7 @@ async function main(): Promise<number> {
   try {
     args = parseArgs(process.argv.slice(2));
   } catch (e) {
+    dropEarlyWorker();
     process.stderr.write(`analyze: ${oneLine((e as Error).message)}\n${USAGE}\n`);
     return 2;
   }
@@ -173,9 +181,6 @@ async function main(): Promise<number> {
   }
 }
 
-// The same file is the worker thread that reads the second half of a large recording (scripts/analyze-parallel.ts).
-if (isMainThread) {
-  main().then((code) => {
-    process.exitCode = code;
-  });
-} else runParseWorker();
+main().then((code) => {
+  process.exitCode = code;
+});

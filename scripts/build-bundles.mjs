@@ -14,7 +14,13 @@ export const BUILD_DIR = join(ROOT, '.build');
 const SHARED_INPUTS = ['lib/signal', 'package.json', 'tsconfig.json', 'scripts/build-bundles.mjs'];
 
 export const BUNDLES = {
-  analyze: { entry: 'scripts/analyze.ts', out: 'analyze.mjs', inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts'] },
+  analyze: { entry: 'scripts/analyze.ts', out: 'analyze.mjs', inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts', 'scripts/analyze-read.ts'] },
+  // the analyze command's second reading thread (scripts/analyze-parallel.ts): the reader only, so it starts fast
+  'analyze-worker': {
+    entry: 'scripts/analyze-worker.ts',
+    out: 'analyze-worker.mjs',
+    inputs: ['scripts/analyze-worker.ts', 'scripts/analyze-parallel.ts', 'scripts/analyze-read.ts'],
+  },
   // the job pool's worker thread (lib/jobs/pool.ts): every task registered in lib/jobs/tasks
   'job-thread': {
     entry: 'lib/jobs/thread-entry.ts',

@@ -3,6 +3,7 @@
 import { SignalInputError } from './errors';
 import { DEFAULT_CUTOFF_HZ, DEFAULT_FILTER_ORDER, zeroLagLowpass, zeroLagMinSamples } from './filter';
 import { savgolDerivative } from './savgol';
+import { medianInPlace } from './select';
 import type { DerivedSeries, Handedness, Region, SensorLayout, SensorSpec, UniformRecording } from './types';
 export { toStanceFrame } from './stance-frame';
 
@@ -56,11 +57,35 @@ export function copOf(forces: ArrayLike<number>, xs: ArrayLike<number>, ys: Arra
   return total > 0 ? { x: mx / total, y: my / total, total } : { x: NaN, y: NaN, total };
 }
 
-function median(x: Float64Array): number {
-  const s = x.slice().sort();
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+/** Adds one sensor's clamped force (max(f, 0)) to its foot's sums: force, heel force and the two moments. */
+function accumulate(
+  f: Float64Array,
+  sum: Float64Array,
+  heel: Float64Array | null,
+  mx: Float64Array,
+  my: Float64Array,
+  x: number,
+  y: number,
+): void {
+  const n = f.length;
+  if (heel) {
+    for (let i = 0; i < n; i++) {
+      const v = f[i] > 0 ? f[i] : 0;
+      sum[i] += v;
+      heel[i] += v;
+      mx[i] += v * x;
+      my[i] += v * y;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = f[i] > 0 ? f[i] : 0;
+      sum[i] += v;
+      mx[i] += v * x;
+      my[i] += v * y;
+    }
+  }
 }
+
 
 /** NaN runs filled for differentiation: linear inside, nearest value at the ends. Null when all NaN. */
 function bridgeNaN(x: Float64Array): Float64Array | null {
@@ -111,26 +136,23 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
     left: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
     right: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
   };
+  // one buffer for every sensor's filtered force: only the sums are kept
+  const f = new Float64Array(n);
   for (const sensor of layout.sensors) {
     const idx = u.sensorIds.indexOf(sensor.id);
     if (idx < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
     // Ringing of the filter at sharp unloading dips a little below 0; a sensor cannot pull, and negative weights
     // would push the COP outside the loaded sensors and the shares outside 0..100 %, so they are clamped to 0.
-    const f = zeroLagLowpass(u.forces[idx], fs, cutoff, order);
+    zeroLagLowpass(u.forces[idx], fs, cutoff, order, f);
     const a = acc[sensor.foot];
     const heel = sensorRegion(sensor, L) === 'heel';
-    for (let i = 0; i < n; i++) {
-      const v = f[i] > 0 ? f[i] : 0;
-      a.n[i] += v;
-      if (heel) a.heel[i] += v;
-      a.mx[i] += v * sensor.x_mm;
-      a.my[i] += v * sensor.y_mm;
-    }
+    accumulate(f, a.n, heel ? a.heel : null, a.mx, a.my, sensor.x_mm, sensor.y_mm);
   }
 
   const totalN = new Float64Array(n);
   for (let i = 0; i < n; i++) totalN[i] = acc.left.n[i] + acc.right.n[i];
-  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * median(totalN));
+  f.set(totalN); // the filter's buffer is free again: the median's working copy
+  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * medianInPlace(f));
 
   const share = (part: Float64Array, whole: Float64Array) => {
     const out = new Float64Array(n);

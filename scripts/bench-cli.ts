@@ -41,7 +41,7 @@ async function main(): Promise<void> {
   if (versions.status !== 0) return void console.log(`skipped: ${PYTHON} has no pandas/scipy (apt-get install python3-pandas python3-scipy)`);
   const [pandasV, scipyV, numpyV] = versions.stdout.trim().split(' ');
   console.log(`python: ${PYTHON}, pandas ${pandasV}, scipy ${scipyV}, numpy ${numpyV}`);
-  await buildBundles({ names: ['analyze'] }); // the first run must not pay for a build
+  await buildBundles({ names: ['analyze', 'analyze-worker'] }); // the first run must not pay for a build
 
   const dir = mkdtempSync(join(tmpdir(), 'stanceline-bench-cli-'));
   try {

@@ -29,13 +29,29 @@ export const BUNDLES = {
   },
 };
 
+// per input, once per process: the analyze launcher checks two bundles with the same shared inputs on every run
+const newest = new Map();
+
 function newestMtime(path) {
-  if (!existsSync(path)) return 0;
-  const stat = statSync(path);
+  let t = newest.get(path);
+  if (t === undefined) {
+    t = walkMtime(path);
+    newest.set(path, t);
+  }
+  return t;
+}
+
+function walkMtime(path) {
+  let stat;
+  try {
+    stat = statSync(path);
+  } catch {
+    return 0;
+  }
   if (!stat.isDirectory()) return stat.mtimeMs;
-  let newest = stat.mtimeMs;
-  for (const entry of readdirSync(path)) newest = Math.max(newest, newestMtime(join(path, entry)));
-  return newest;
+  let latest = stat.mtimeMs;
+  for (const entry of readdirSync(path)) latest = Math.max(latest, walkMtime(join(path, entry)));
+  return latest;
 }
 
 export function bundlePath(name) {
@@ -51,6 +67,7 @@ export function isStale(name) {
 }
 
 export async function buildBundle(name) {
+  newest.clear(); // a build is a moment to look again
   const { build } = await import('esbuild');
   await build({
     absWorkingDir: ROOT,

@@ -37,8 +37,9 @@ export interface AnalyzeOptions {
   /** times (s) where a coach asked for a swing the finder rejected (promoteSwing) */
   promote?: readonly number[];
   /**
-   * raw's channel arrays may be reused for the regularised forces (regularise's reuseChannels): for a caller that
-   * reads a recording only to analyse it once, such as the analyze command. The results are the same.
+   * raw's channel arrays may be reused for the regularised forces (regularise's reuseChannels), and with
+   * sensorWindows false those for the derived series too (derive's consumeForces): for a caller that reads a
+   * recording only to analyse it once, such as the analyze command. The results are the same.
    */
   reuseChannels?: boolean;
   /** false: no per-sensor windows (sensorWindows.forces stays empty), for a caller that does not use them */
@@ -94,6 +95,8 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     filterOrder: DEFAULT_DERIVE.filterOrder,
     derivativeWindow,
     derivativePolyOrder: DEFAULT_DERIVE.derivativePolyOrder,
+    // the forces' memory serves the series when raw is ours to reuse and nothing reads the forces afterwards
+    consumeForces: opts.reuseChannels === true && opts.sensorWindows === false,
   });
   detectionParams(stanceWidthMm, opts.detection); // validates overrides before the search
   const finderOpts = { stanceWidthMm, impact: u.impact, params: opts.detection };

@@ -26,6 +26,12 @@ export interface DeriveParams {
   /** samples, odd; default: DEFAULT_DERIVE.derivativeWindowS worth of samples */
   derivativeWindow?: number;
   derivativePolyOrder?: number;
+  /**
+   * u.forces may be overwritten: each sensor is filtered in its own array, and the arrays then hold derive's own
+   * series instead of new ones (the same numbers; for a caller that regularised a recording only for this, such as
+   * the analyze command). u.forces no longer holds the forces afterwards.
+   */
+  consumeForces?: boolean;
 }
 
 /** Odd window of about `seconds` at fs, at least the smallest odd window longer than polyOrder + 1. */
@@ -87,9 +93,9 @@ function accumulate(
 }
 
 
-/** NaN runs filled for differentiation: linear inside, nearest value at the ends. Null when all NaN. */
-function bridgeNaN(x: Float64Array): Float64Array | null {
-  const y = x.slice();
+/** NaN runs filled for differentiation (into `y`): linear inside, nearest value at the ends. Null when all NaN. */
+function bridgeNaN(x: Float64Array, y: Float64Array): Float64Array | null {
+  y.set(x);
   const n = y.length;
   let prev = -1;
   for (let i = 0; i <= n; i++) {
@@ -136,36 +142,50 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
     left: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
     right: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
   };
-  // one buffer for every sensor's filtered force: only the sums are kept
-  const f = new Float64Array(n);
+  // Memory for the series: new arrays, or (consumeForces) the force arrays once filtered and summed. One buffer
+  // for every sensor's filtered force otherwise: only the sums are kept.
+  const consume = params.consumeForces === true;
+  const free: Float64Array[] = [];
+  const alloc = () => free.pop() ?? new Float64Array(n);
+  if (consume) {
+    for (const sensor of layout.sensors) {
+      if (u.sensorIds.indexOf(sensor.id) < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
+    }
+  }
+  const scratch = consume ? null : new Float64Array(n);
   for (const sensor of layout.sensors) {
     const idx = u.sensorIds.indexOf(sensor.id);
     if (idx < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
     // Ringing of the filter at sharp unloading dips a little below 0; a sensor cannot pull, and negative weights
     // would push the COP outside the loaded sensors and the shares outside 0..100 %, so they are clamped to 0.
-    zeroLagLowpass(u.forces[idx], fs, cutoff, order, f);
+    const x = u.forces[idx];
+    const f = scratch ?? (x.length === n ? x : x.subarray(0, n));
+    zeroLagLowpass(x, fs, cutoff, order, f);
+    if (consume) free.push(f);
     const a = acc[sensor.foot];
     const heel = sensorRegion(sensor, L) === 'heel';
     accumulate(f, a.n, heel ? a.heel : null, a.mx, a.my, sensor.x_mm, sensor.y_mm);
   }
 
-  const totalN = new Float64Array(n);
+  const totalN = alloc();
   for (let i = 0; i < n; i++) totalN[i] = acc.left.n[i] + acc.right.n[i];
-  f.set(totalN); // the filter's buffer is free again: the median's working copy
-  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * medianInPlace(f));
+  const work = scratch ?? alloc(); // the median's working copy
+  work.set(totalN);
+  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * medianInPlace(work));
+  if (consume) free.push(work);
 
   const share = (part: Float64Array, whole: Float64Array) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = whole[i] >= minLoad ? (part[i] / whole[i]) * 100 : NaN;
     return out;
   };
   const toeShare = (foot: typeof acc.left) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = foot.n[i] >= minLoad ? ((foot.n[i] - foot.heel[i]) / foot.n[i]) * 100 : NaN;
     return out;
   };
   const ratio = (m: Float64Array, w: Float64Array) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = w[i] >= minLoad ? m[i] / w[i] : NaN;
     return out;
   };
@@ -174,8 +194,8 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const trail = acc[leadFoot === 'left' ? 'right' : 'left'];
   // Net COP = (COP_lead F_lead + COP_trail F_trail) / (F_lead + F_trail) (Winter 1995), from the moments directly,
   // so it is defined whenever the total carries load, even with one foot off the ground.
-  const copX = new Float64Array(n);
-  const copY = new Float64Array(n);
+  const copX = alloc();
+  const copY = alloc();
   const half = stanceWidthMm / 2;
   for (let i = 0; i < n; i++) {
     const t = totalN[i];
@@ -189,20 +209,23 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   }
   const dt = 1 / fs;
   const velocity = (c: Float64Array) => {
-    const bridged = bridgeNaN(c);
-    if (!bridged) return new Float64Array(n).fill(NaN);
-    const v = savgolDerivative(bridged, window, polyOrder, dt);
+    const bridged = bridgeNaN(c, alloc());
+    if (!bridged) return alloc().fill(NaN);
+    const v = savgolDerivative(bridged, window, polyOrder, dt, alloc());
+    if (consume) free.push(bridged);
     for (let i = 0; i < n; i++) if (Number.isNaN(c[i])) v[i] = NaN;
     return v;
   };
   const copVx = velocity(copX);
   const copVy = velocity(copY);
-  const copSpeed = new Float64Array(n);
+  const copSpeed = alloc();
   for (let i = 0; i < n; i++) copSpeed[i] = Math.hypot(copVx[i], copVy[i]);
 
+  const time = alloc();
+  time.set(u.time);
   return {
     sampleRateHz: fs,
-    time: u.time.slice(),
+    time,
     leftN: acc.left.n,
     rightN: acc.right.n,
     totalN,

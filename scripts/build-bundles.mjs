@@ -3,7 +3,7 @@
 // module under .build/. Plain JavaScript so it runs from `npm ci`'s prepare step and from the analyze launcher.
 //   node scripts/build-bundles.mjs          build the bundles that are missing or older than their sources
 //   node scripts/build-bundles.mjs --force  build them all
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -14,7 +14,14 @@ export const BUILD_DIR = join(ROOT, '.build');
 const SHARED_INPUTS = ['lib/signal', 'package.json', 'tsconfig.json', 'scripts/build-bundles.mjs'];
 
 export const BUNDLES = {
-  analyze: { entry: 'scripts/analyze.ts', out: 'analyze.mjs', inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts', 'scripts/analyze-read.ts'] },
+  // split: the schema library (zod: --layout, --profile, a bad option value) in a chunk of its own, so that the
+  // command's start-up does not read and compile it
+  analyze: {
+    entry: 'scripts/analyze.ts',
+    out: 'analyze.mjs',
+    split: true,
+    inputs: ['scripts/analyze.ts', 'scripts/analyze-parallel.ts', 'scripts/analyze-read.ts'],
+  },
   // the analyze command's second reading thread (scripts/analyze-parallel.ts): the reader only, so it starts fast
   'analyze-worker': {
     entry: 'scripts/analyze-worker.ts',
@@ -69,10 +76,15 @@ export function isStale(name) {
 export async function buildBundle(name) {
   newest.clear(); // a build is a moment to look again
   const { build } = await import('esbuild');
+  // split: what the entry only imports dynamically goes to chunk files beside it, read only when imported
+  const chunks = join(BUILD_DIR, `${name}-chunks`);
+  if (BUNDLES[name].split) rmSync(chunks, { recursive: true, force: true });
   await build({
     absWorkingDir: ROOT,
     entryPoints: [join(ROOT, BUNDLES[name].entry)],
-    outfile: bundlePath(name),
+    ...(BUNDLES[name].split
+      ? { outdir: BUILD_DIR, splitting: true, entryNames: '[name]', chunkNames: `${name}-chunks/[name]-[hash]`, outExtension: { '.js': '.mjs' } }
+      : { outfile: bundlePath(name) }),
     bundle: true,
     platform: 'node',
     format: 'esm',

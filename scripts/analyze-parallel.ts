@@ -1,18 +1,18 @@
-// Reading a large recording on two threads for the analyze command. The file is cut at a line boundary near its
-// middle; this thread reads the first half while a worker thread (its own small bundle, .build/analyze-worker.mjs)
-// reads the second half behind a copy of the file's preamble (metadata and header) and of the first half's last
-// data row, so the worker's reader checks the field count and the rising time across the cut exactly as one reader
-// would. Both read bytes (scripts/analyze-read.ts) straight into arrays shared between the threads
-// (SharedArrayBuffer), sized from the line counts: the first half's rows at the start, the worker's from the copied
-// row on (that row is written by both threads, with the same bytes), so the halves need no joining copy; only the
-// worker's line numbers are shifted to the file's.
+// Reading a large recording on two threads for the analyze command. The file is cut at line boundaries into blocks
+// of about 2 MB; a worker thread (its own small bundle, .build/analyze-worker.mjs) and this thread take turns at them
+// (an atomic counter), so neither waits long for the other whatever the load. Every block but the first is read
+// behind a copy of the file's preamble (metadata and header) and of the previous block's last line, so its reader
+// checks the field count and the rising time across the cut exactly as one reader would. All read bytes
+// (scripts/analyze-read.ts) straight into arrays shared between the threads (SharedArrayBuffer), sized from the line
+// counts: each block's rows where the counts put them, its copied first row on the previous block's last (written by
+// both, with the same bytes), so the blocks need no joining copy; line numbers are shifted to the file's.
 //
-// The worker plans the cut and makes the shared arrays itself, then tells this thread (a 'plan' message) before it
-// reads its half; so it can be started before the command's bundle is loaded (scripts/analyze.mjs does that for a
-// large FILE without --profile), and its start-up overlaps the loading. Anything unusual (an error in either half, a
-// blank or comment line among the data that makes the counts differ from the rows, a cut that does not fall
-// between two data rows, an import profile) returns null and the caller reads the file on one thread, so its output
-// and its error messages stay exactly those of the one-thread reader.
+// The worker plans the blocks and makes the shared arrays itself, then tells this thread (a 'plan' message) before it
+// reads; so it can be started before the command's bundle is loaded (scripts/analyze.mjs does that for a large FILE
+// without --profile), and its start-up overlaps the loading. Anything unusual (an error in any block, a blank or
+// comment line among the data that makes the counts differ from the rows, a cut that does not fall between two data
+// rows, an import profile) returns null and the caller reads the file on one thread, so its output and its error
+// messages stay exactly those of the one-thread reader.
 import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { Worker, workerData, parentPort } from 'node:worker_threads';
@@ -33,29 +33,50 @@ export const EARLY_WORKER = Symbol.for('stanceline.analyze.readWorker');
 const WINDOW = 1 << 16;
 
 type Column = 'time' | 'impact' | { sensor: number };
-type Shared = { time: SharedArrayBuffer | null; impact: SharedArrayBuffer | null; sensors: SharedArrayBuffer[] };
 
-/** How the file is cut; all counts from the file's lines, as if every line after the header were a data row. */
+/**
+ * How the file is cut: into blocks of about BLOCK_BYTES at line boundaries, with every count taken from the file's
+ * lines as if every line after the header were a data row. Block 0 starts at the file's start (the preamble
+ * included); every later block is read behind `prefix` (the preamble and the previous block's last line), its first
+ * row, that copied line, landing on the previous block's last row.
+ */
 interface Plan {
-  cut: number;
   size: number;
   preambleLines: number;
-  /** preamble (BOM dropped) + the first half's last line */
-  prefix: string;
-  /** lines of the first half [0, cut) */
-  linesA: number;
-  linesB: number;
-  rowsA: number;
-  /** the worker's rows: the copied row, then the second half's lines */
-  rowsB: number;
+  blocks: Block[];
+  /** rows of the whole file */
   total: number;
 }
 
-type Message =
-  | { kind: 'none' }
-  | { kind: 'plan'; path: string; plan: Plan; shared: Shared }
-  | { kind: 'done'; ok: true; rows: number; inPlace: boolean; lines: Uint32Array }
-  | { kind: 'done'; ok: false };
+interface Block {
+  start: number;
+  end: number;
+  /** the block's own lines */
+  lines: number;
+  /** preamble + the previous block's last line (null for block 0) */
+  prefix: string | null;
+  /** where the block's reader puts its first row, and how many rows it has (the copied one included) */
+  offset: number;
+  rows: number;
+  /** block reader's line number -> the file's */
+  lineShift: number;
+}
+
+/** Blocks the two threads take turns at (an atomic counter), so neither waits long for the other; tests set less. */
+const BLOCK_BYTES = Number(process.env.STANCELINE_PARALLEL_PARSE_BLOCK_BYTES ?? 2 << 20);
+const MAX_BLOCKS = 64;
+
+type Shared = {
+  time: SharedArrayBuffer | null;
+  impact: SharedArrayBuffer | null;
+  sensors: SharedArrayBuffer[];
+  /** Uint32Array(total): the file's line numbers */
+  lines: SharedArrayBuffer;
+  /** Int32Array(1 + blocks): [0] the next block to take, then per block 0 = not read, 1 = read exactly, 2 = not */
+  state: SharedArrayBuffer;
+};
+
+type Message = { kind: 'none' } | { kind: 'plan'; path: string; plan: Plan; shared: Shared } | { kind: 'done' };
 
 /** A worker and the messages it sent so far (kept from its start, so none is lost while the bundle loads). */
 export interface ReadWorker {
@@ -79,8 +100,8 @@ function readRange(fd: number, start: number, end: number): Buffer {
   return buf.subarray(0, at);
 }
 
-/** The cut, the prefix and the line counts, or null when the file is not one to read in two halves. */
-function planHalves(fd: number, buf: Buffer): Plan | null {
+/** The blocks, or null when the file is not one to read on two threads. */
+function planBlocks(fd: number, buf: Buffer): Plan | null {
   const stat = fstatSync(fd);
   if (!stat.isFile()) return null;
   const size = stat.size;
@@ -100,29 +121,56 @@ function planHalves(fd: number, buf: Buffer): Plan | null {
     if (trimmed !== '' && !trimmed.startsWith('#')) break;
   }
   const preambleEnd = from;
+  const preamble = utf8.decode(head.subarray(bodyStart, preambleEnd));
 
-  // the cut: just after the first newline at or after the middle (a newline byte never sits inside a UTF-8 character)
-  const probe = readRange(fd, size >> 1, Math.min(size, (size >> 1) + WINDOW));
-  const nl = probe.indexOf(10);
-  if (nl < 0) return null;
-  const cut = (size >> 1) + nl + 1;
-  if (cut >= size || cut <= preambleEnd) return null;
+  // cuts: just after the first newline at or after each multiple of the block size (a newline byte never sits
+  // inside a UTF-8 character)
+  const count = Math.min(MAX_BLOCKS, Math.max(2, Math.round(size / BLOCK_BYTES)));
+  const cuts = [0];
+  for (let k = 1; k < count; k++) {
+    const at = Math.max(preambleEnd, Math.floor((size * k) / count), cuts[cuts.length - 1]);
+    const probe = readRange(fd, at, Math.min(size, at + WINDOW));
+    const nl = probe.indexOf(10);
+    if (nl < 0) return null;
+    const cut = at + nl + 1;
+    if (cut >= size) break;
+    if (cut > cuts[cuts.length - 1]) cuts.push(cut);
+  }
+  cuts.push(size);
+  if (cuts.length < 3) return null;
 
-  // the first half's last line, read again by the worker before its own rows; it must look like a data row
-  const tailStart = Math.max(preambleEnd, cut - WINDOW);
-  const tail = readRange(fd, tailStart, cut);
-  const lineStart = tail.lastIndexOf(10, tail.length - 2) + 1;
-  if (lineStart === 0 && tailStart !== preambleEnd) return null; // longer than the window
-  const lastRow = utf8.decode(tail.subarray(lineStart, tail.length - 1));
-  if (lastRow.trim() === '' || lastRow.trim().startsWith('#')) return null;
-
-  const linesA = countLines(fd, 0, cut, buf);
-  const linesB = countLines(fd, cut, size, buf);
-  const rowsA = linesA - preambleLines;
-  const rowsB = 1 + linesB;
-  if (rowsA < 2) return null;
-  const prefix = `${utf8.decode(head.subarray(bodyStart, preambleEnd))}${lastRow}\n`;
-  return { cut, size, preambleLines, prefix, linesA, linesB, rowsA, rowsB, total: rowsA - 1 + rowsB };
+  const blocks: Block[] = [];
+  let linesBefore = 0;
+  let rowsBefore = 0;
+  for (let k = 0; k + 1 < cuts.length; k++) {
+    const [start, end] = [cuts[k], cuts[k + 1]];
+    const lines = countLines(fd, start, end, buf);
+    let prefix: string | null = null;
+    if (k > 0) {
+      // the previous block's last line; it must look like a data row
+      const tailStart = Math.max(preambleEnd, start - WINDOW);
+      const tail = readRange(fd, tailStart, start);
+      const lineStart = tail.lastIndexOf(10, tail.length - 2) + 1;
+      if (lineStart === 0 && tailStart !== preambleEnd) return null; // longer than the window
+      const last = utf8.decode(tail.subarray(lineStart, tail.length - 1));
+      if (last.trim() === '' || last.trim().startsWith('#')) return null;
+      prefix = `${preamble}${last}\n`;
+    }
+    const own = k === 0 ? lines - preambleLines : lines; // the block's own rows
+    if (own < (k === 0 ? 2 : 1)) return null;
+    blocks.push({
+      start,
+      end,
+      lines,
+      prefix,
+      offset: k === 0 ? 0 : rowsBefore - 1,
+      rows: k === 0 ? own : own + 1,
+      lineShift: k === 0 ? 0 : linesBefore - (preambleLines + 1),
+    });
+    linesBefore += lines;
+    rowsBefore += own;
+  }
+  return { size, preambleLines, blocks, total: rowsBefore };
 }
 
 function sharedView(shared: Shared, column: Column, offset: number, rows: number): Float64Array | Uint8Array {
@@ -144,40 +192,79 @@ function filledInPlace(raw: RawRecording, shared: Shared, offset: number, rows: 
   );
 }
 
-/** The worker thread's side (workerData: { path }): plan, make the shared arrays, read the second half. */
+/**
+ * Reads block k into the shared arrays: true when every row went exactly where the plan put it. Block 0 returns its
+ * recording (metadata, header) for the caller to assemble the result.
+ */
+function readBlock(fd: number, buf: Buffer, plan: Plan, shared: Shared, k: number): RawRecording | null {
+  const block = plan.blocks[k];
+  const reader = createRecordingReader({
+    lines: k === 0 ? block.lines : plan.preambleLines + block.rows,
+    arrays: (column, rows) => (column === 'lines' ? new Uint32Array(rows) : sharedView(shared, column, block.offset, rows)),
+  });
+  if (block.prefix) reader.push(block.prefix);
+  pushFileBytes(reader, fd, block.start, block.end, buf);
+  const raw = reader.end();
+  if (!filledInPlace(raw, shared, block.offset, block.rows)) return null;
+  const lines = new Uint32Array(shared.lines);
+  for (let i = k === 0 ? 0 : 1; i < block.rows; i++) lines[block.offset + i] = raw.lines[i] + block.lineShift;
+  return raw;
+}
+
+/** Takes blocks (from 1: block 0 is the main thread's) until none is left; each marked read (1) or not (2). */
+function readBlocks(fd: number, buf: Buffer, plan: Plan, shared: Shared): void {
+  const state = new Int32Array(shared.state);
+  for (;;) {
+    const k = Atomics.add(state, 0, 1) + 1;
+    if (k >= plan.blocks.length) return;
+    let ok = false;
+    try {
+      ok = readBlock(fd, buf, plan, shared, k) !== null;
+    } catch {
+      ok = false;
+    }
+    Atomics.store(state, 1 + k, ok ? 1 : 2);
+  }
+}
+
+/** The worker thread's side (workerData: { path }): plan, make the shared arrays, then read blocks. */
 export function runParseWorker(): void {
   const { path } = workerData as { path: string };
-  const post = (m: Message, transfer: ArrayBuffer[] = []) => parentPort!.postMessage(m, transfer);
+  const post = (m: Message) => parentPort!.postMessage(m);
   let planned = false;
   let fd = -1;
   try {
     fd = openSync(path, 'r');
     const buf = Buffer.allocUnsafeSlow(CHUNK_BYTES);
-    const plan = planHalves(fd, buf);
+    const plan = planBlocks(fd, buf);
     if (!plan) return post({ kind: 'none' });
-    const shared: Shared = { time: null, impact: null, sensors: [] };
-    const offset = plan.rowsA - 1;
-    const reader = createRecordingReader({
-      lines: plan.preambleLines + plan.rowsB,
+    const shared: Shared = {
+      time: null,
+      impact: null,
+      sensors: [],
+      lines: new SharedArrayBuffer(plan.total * 4),
+      state: new SharedArrayBuffer(4 * (1 + plan.blocks.length)),
+    };
+    // the header, read once here, says which arrays there are
+    const header = createRecordingReader({
+      lines: plan.preambleLines + 1,
       arrays: (column, rows) => {
         if (column === 'lines') return new Uint32Array(rows);
         const buffer = new SharedArrayBuffer(column === 'impact' ? plan.total : plan.total * 8);
         if (column === 'time') shared.time = buffer;
         else if (column === 'impact') shared.impact = buffer;
         else shared.sensors[column.sensor] = buffer;
-        return sharedView(shared, column, offset, rows);
+        return column === 'impact' ? new Uint8Array(rows) : new Float64Array(rows);
       },
     });
-    reader.push(plan.prefix); // the header: the shared arrays now exist
+    header.push(plan.blocks[1].prefix!);
     if (!shared.time || shared.sensors.length === 0) return post({ kind: 'none' });
     post({ kind: 'plan', path, plan, shared });
     planned = true;
-    pushFileBytes(reader, fd, plan.cut, plan.size, buf);
-    const raw = reader.end();
-    const inPlace = filledInPlace(raw, shared, offset, plan.rowsB);
-    post({ kind: 'done', ok: true, rows: raw.time.length, inPlace, lines: raw.lines }, [raw.lines.buffer as ArrayBuffer]);
+    readBlocks(fd, buf, plan, shared);
+    post({ kind: 'done' });
   } catch {
-    post(planned ? { kind: 'done', ok: false } : { kind: 'none' });
+    post(planned ? { kind: 'done' } : { kind: 'none' });
   } finally {
     if (fd >= 0) closeSync(fd);
   }
@@ -241,33 +328,31 @@ export async function readParallel(path: string, bundleUrl: URL): Promise<RawRec
     const first = await nextMessage(rw);
     if (!first || first.kind !== 'plan' || first.path !== path) return null;
     const { plan, shared } = first;
-    const reader = createRecordingReader({
-      lines: plan.linesA,
-      arrays: (column, rows) => (column === 'lines' ? new Uint32Array(rows) : sharedView(shared, column, 0, rows)),
-    });
-    let a: RawRecording;
+    const buf = Buffer.allocUnsafeSlow(CHUNK_BYTES);
+    let a: RawRecording | null;
     try {
       fd = openSync(path, 'r');
-      pushFileBytes(reader, fd, 0, plan.cut, Buffer.allocUnsafeSlow(CHUNK_BYTES));
-      a = reader.end();
+      a = readBlock(fd, buf, plan, shared, 0);
+      if (a) readBlocks(fd, buf, plan, shared);
     } catch {
       return null;
     }
-    const b = await nextMessage(rw);
-    if (!b || b.kind !== 'done' || !b.ok || !b.inPlace || b.rows !== plan.rowsB || !filledInPlace(a, shared, 0, plan.rowsA)) return null;
+    const done = await nextMessage(rw);
+    const state = new Int32Array(shared.state);
+    if (!a || !done || done.kind !== 'done') return null;
+    for (let k = 1; k < plan.blocks.length; k++) if (Atomics.load(state, 1 + k) !== 1) return null;
     // a developer's check that the two-thread path ran (never set by the command itself)
-    if (process.env.STANCELINE_PARALLEL_PARSE_TRACE) process.stderr.write(`analyze: read on two threads, cut at byte ${plan.cut}\n`);
-    const { rowsA, rowsB, total } = plan;
-    const shift = plan.linesA - (plan.preambleLines + 1); // worker line -> file line
-    const lines = new Uint32Array(total);
-    lines.set(a.lines, 0);
-    for (let i = 1; i < rowsB; i++) lines[rowsA - 1 + i] = b.lines[i] + shift;
+    if (process.env.STANCELINE_PARALLEL_PARSE_TRACE) {
+      const cuts = plan.blocks.slice(1).map((b) => b.start);
+      process.stderr.write(`analyze: read on two threads, ${plan.blocks.length} blocks cut at bytes ${cuts.join(', ')}\n`);
+    }
+    const { total } = plan;
     return {
       ...a,
       time: new Float64Array(shared.time!, 0, total),
       channels: shared.sensors.map((s) => new Float64Array(s, 0, total)),
       impact: shared.impact ? new Uint8Array(shared.impact, 0, total) : null,
-      lines,
+      lines: new Uint32Array(shared.lines, 0, total),
     };
   } finally {
     if (fd >= 0) closeSync(fd);

@@ -17,15 +17,15 @@ const PYTHON = process.env.BENCH_PYTHON ?? '/usr/bin/python3';
 const TIME = '/usr/bin/time';
 const root = process.cwd();
 
-type Run = { wallS: number; rssMb: number; stdout: string };
+type Run = { wallS: number; cpuS: number; rssMb: number; stdout: string };
 
 function timed(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env): Run {
   const stats = join(tmpdir(), `stanceline-bench-time-${process.pid}`);
-  const r = spawnSync(TIME, ['-f', '%e %M', '-o', stats, cmd, ...args], { cwd: root, encoding: 'utf8', maxBuffer: 64 << 20, env });
+  const r = spawnSync(TIME, ['-f', '%e %M %U %S', '-o', stats, cmd, ...args], { cwd: root, encoding: 'utf8', maxBuffer: 64 << 20, env });
   if (r.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed (${r.status}): ${r.stderr}`);
-  const [wall, rssKb] = readFileSync(stats, 'utf8').trim().split('\n').at(-1)!.split(' ').map(Number);
+  const [wall, rssKb, user, sys] = readFileSync(stats, 'utf8').trim().split('\n').at(-1)!.split(' ').map(Number);
   rmSync(stats, { force: true });
-  return { wallS: wall, rssMb: rssKb / 1024, stdout: r.stdout };
+  return { wallS: wall, cpuS: user + sys, rssMb: rssKb / 1024, stdout: r.stdout };
 }
 
 const median = (xs: number[]) => {
@@ -56,8 +56,8 @@ async function main(): Promise<void> {
     const ours: Run[] = [];
     const oneThread: Run[] = [];
     const theirs: Run[] = [];
-    // the command as shipped (this file is over 16 MB: read on two threads when a core is idle) and with the
-    // two-thread reader off
+    // the command as shipped (this file is over 16 MB: read on two threads) and with the two-thread reader off (the
+    // byte reader on one thread)
     const off = { ...process.env, STANCELINE_PARALLEL_PARSE_MIN_BYTES: String(Number.MAX_SAFE_INTEGER) };
     for (let i = 0; i < ROUNDS; i++) {
       ours.push(timed('npm', ['run', '-s', 'analyze', '--', file]));
@@ -73,7 +73,9 @@ async function main(): Promise<void> {
     console.log(`npm run -s analyze:     ${a.toFixed(2)} s   runs ${ours.map((r) => r.wallS.toFixed(2)).join(', ')}   (${swings} swings)`);
     console.log(`pandas + scipy script:  ${b.toFixed(2)} s   runs ${theirs.map((r) => r.wallS.toFixed(2)).join(', ')}`);
     const one = median(oneThread.map((r) => r.wallS));
-    console.log(`analyze, one thread:    ${one.toFixed(2)} s   runs ${oneThread.map((r) => r.wallS.toFixed(2)).join(', ')}   (ratio ${(one / b).toFixed(2)}; the two-thread reader runs only while a core is idle, see scripts/analyze-parallel.ts)`);
+    console.log(`analyze, one thread:    ${one.toFixed(2)} s   runs ${oneThread.map((r) => r.wallS.toFixed(2)).join(', ')}   (ratio ${(one / b).toFixed(2)}; the reader on one thread, STANCELINE_PARALLEL_PARSE_MIN_BYTES above the file size)`);
+    const cpu = (runs: Run[]) => median(runs.map((r) => r.cpuS)).toFixed(2);
+    console.log(`CPU time (user + sys, median): analyze ${cpu(ours)} s, one thread ${cpu(oneThread)} s, python ${cpu(theirs)} s`);
     console.log(`load average at the end: ${loadavg().map((l) => l.toFixed(1)).join(' ')} on ${availableParallelism()} cores`);
     console.log(`ratio analyze / python: ${(a / b).toFixed(2)}   (target <= ${TARGET.ratio}: ${a / b <= TARGET.ratio ? 'met' : 'NOT met'})`);
     console.log(`analyze peak RSS:       ${rss.toFixed(0)} MB   (target <= ${TARGET.rssMb} MB: ${rss <= TARGET.rssMb ? 'met' : 'NOT met'}); python ${Math.max(...theirs.map((r) => r.rssMb)).toFixed(0)} MB`);

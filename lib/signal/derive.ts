@@ -138,10 +138,6 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const leadFoot = handedness === 'right' ? 'left' : 'right';
   const L = layout.foot_length_mm;
 
-  const acc = {
-    left: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
-    right: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
-  };
   // Memory for the series: new arrays, or (consumeForces) the force arrays once filtered and summed. One buffer
   // for every sensor's filtered force otherwise: only the sums are kept.
   const consume = params.consumeForces === true;
@@ -153,6 +149,12 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
     }
   }
   const scratch = consume ? null : new Float64Array(n);
+  // per foot: force, heel force and the two moments, made when the foot's first sensor comes (with consumeForces a
+  // foot whose sensors come after the other's sums into the arrays of the other's filtered forces)
+  type Sums = { n: Float64Array; heel: Float64Array; mx: Float64Array; my: Float64Array };
+  const zeroed = () => free.pop()?.fill(0) ?? new Float64Array(n);
+  const feet: { left?: Sums; right?: Sums } = {};
+  const sumsOf = (foot: 'left' | 'right'): Sums => (feet[foot] ??= { n: zeroed(), heel: zeroed(), mx: zeroed(), my: zeroed() });
   for (const sensor of layout.sensors) {
     const idx = u.sensorIds.indexOf(sensor.id);
     if (idx < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
@@ -161,11 +163,12 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
     const x = u.forces[idx];
     const f = scratch ?? (x.length === n ? x : x.subarray(0, n));
     zeroLagLowpass(x, fs, cutoff, order, f);
-    if (consume) free.push(f);
-    const a = acc[sensor.foot];
+    const a = sumsOf(sensor.foot);
     const heel = sensorRegion(sensor, L) === 'heel';
     accumulate(f, a.n, heel ? a.heel : null, a.mx, a.my, sensor.x_mm, sensor.y_mm);
+    if (consume) free.push(f);
   }
+  const acc = { left: sumsOf('left'), right: sumsOf('right') };
 
   const totalN = alloc();
   for (let i = 0; i < n; i++) totalN[i] = acc.left.n[i] + acc.right.n[i];

@@ -429,8 +429,10 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
     pending = chunk.slice(nl + 1);
   };
 
-  const pushBytes = (chunk: Uint8Array) => {
+  const pushBytes = (input: Uint8Array) => {
     if (ended) throw new RangeError('push() after end()');
+    // a plain Uint8Array view: a subclass's own indexOf (Node's Buffer) is slower per call and allocates
+    const chunk = Object.getPrototypeOf(input) === Uint8Array.prototype ? input : new Uint8Array(input.buffer, input.byteOffset, input.byteLength);
     let from = 0;
     if (!started && chunk.length > 0) {
       started = true;

@@ -29,7 +29,7 @@ export interface DeriveParams {
   /**
    * u.forces may be overwritten: each sensor is filtered in its own array, and the arrays then hold derive's own
    * series instead of new ones (the same numbers; for a caller that regularised a recording only for this, such as
-   * the analyze command). u.forces no longer holds the forces afterwards.
+   * the analyze command). u.forces no longer holds the forces afterwards, and the series' time is u.time itself.
    */
   consumeForces?: boolean;
 }
@@ -224,8 +224,9 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const copSpeed = alloc();
   for (let i = 0; i < n; i++) copSpeed[i] = Math.hypot(copVx[i], copVy[i]);
 
-  const time = alloc();
-  time.set(u.time);
+  // consumeForces: u is the caller's to give up, so its time axis is taken as it is
+  const time = consume ? u.time : alloc();
+  if (!consume) time.set(u.time);
   return {
     sampleRateHz: fs,
     time,

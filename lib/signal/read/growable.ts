@@ -30,6 +30,21 @@ export class Growable<T extends Float64Array | Uint32Array | Uint8Array> {
     return this.before + this.used;
   }
 
+  /** The block being filled and how many of its values are used: a caller may write after them, then `grow`. */
+  get current(): T {
+    return this.block;
+  }
+
+  get filled(): number {
+    return this.used;
+  }
+
+  /** Counts `count` values written by the caller into `current` after `filled` (within its length). */
+  grow(count: number): void {
+    if (this.used + count > this.block.length) throw new RangeError('grow() past the block');
+    this.used += count;
+  }
+
   push(value: number): void {
     if (this.used === this.block.length) this.next();
     this.block[this.used++] = value;

@@ -93,6 +93,39 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
     lines = new Growable(Uint32Array, rows, given?.('lines', rows!) as Uint32Array | undefined);
     impact = p.impact >= 0 ? new Growable(Uint8Array, rows, given?.('impact', rows!) as Uint8Array | undefined) : null;
     channels = p.sensors.map((_, c) => new Growable(Float64Array, rows, given?.({ sensor: c }, rows!) as Float64Array | undefined));
+    if (rows !== undefined) {
+      direct = {
+        row: 0,
+        limit: rows,
+        time: time.current,
+        lines: lines.current,
+        impact: impact ? impact.current : null,
+        channels: channels.map((g) => g.current),
+      };
+    }
+  };
+
+  /**
+   * Rows written by fastLineBytes straight into the arrays sized from the `lines` hint (no call per value: a double
+   * handed to a method is boxed, and 16 of them per line kept the young generation busy). Every other way of adding
+   * a row first hands the count back to the Growables (endDirect) and then pushes as usual.
+   */
+  let direct: {
+    row: number;
+    limit: number;
+    time: Float64Array;
+    lines: Uint32Array;
+    impact: Uint8Array | null;
+    channels: Float64Array[];
+  } | null = null;
+  const endDirect = () => {
+    if (!direct) return;
+    const rows = direct.row;
+    direct = null;
+    time!.grow(rows);
+    lines!.grow(rows);
+    impact?.grow(rows);
+    for (const c of channels) c.grow(rows);
   };
 
   const setDelimiter = (firstLine: string) => {
@@ -140,6 +173,7 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
   };
 
   const dataRow = (fields: string[], p: ColumnPlan) => {
+    endDirect();
     line++;
     const count = fields.length;
     stripCr(fields);
@@ -289,6 +323,7 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
       if (v !== 0 && v !== 1) return false;
     }
     // accepted: the same effects as dataRow for this line
+    endDirect();
     line++;
     lastContentLine = line;
     prevTime = ts;
@@ -354,6 +389,17 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
     line++;
     lastContentLine = line;
     prevTime = ts;
+    const d = direct;
+    if (d !== null && d.row < d.limit) {
+      const r = d.row++;
+      const out = d.channels;
+      for (let c = 0; c < sensors.length; c++) out[c][r] = cells[sensors[c]];
+      if (d.impact) d.impact[r] = cells[p.impact] === 1 ? 1 : 0;
+      d.time[r] = ts;
+      d.lines[r] = line;
+      return true;
+    }
+    endDirect();
     for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
     if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
     time!.push(ts);
@@ -459,6 +505,7 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
     end(): RawRecording {
       if (ended) throw new RangeError('end() called twice');
       ended = true;
+      endDirect();
       if (pending !== '') {
         checkLine(pending, line + 1);
         block(pending);

@@ -7,24 +7,46 @@
 // counts: each block's rows where the counts put them, its copied first row on the previous block's last (written by
 // both, with the same bytes), so the blocks need no joining copy; line numbers are shifted to the file's.
 //
-// The worker plans the blocks and makes the shared arrays itself, then tells this thread (a 'plan' message) before it
-// reads; so it can be started before the command's bundle is loaded (scripts/analyze.mjs does that for a large FILE
-// without --profile), and its start-up overlaps the loading. Anything unusual (an error in any block, a blank or
+// This thread plans the blocks, makes the shared arrays and starts reading at once; the worker joins when it is up
+// (its start-up takes a good 0.1 s, which is why scripts/analyze.mjs starts it before the command's bundle loads,
+// for a large FILE without --profile). Anything unusual (an error in any block, a blank or
 // comment line among the data that makes the counts differ from the rows, a cut that does not fall between two data
 // rows, an import profile) returns null and the caller reads the file on one thread, so its output and its error
 // messages stay exactly those of the one-thread reader.
-import { closeSync, fstatSync, openSync, readSync, statSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
+import { closeSync, fstatSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
 import { Worker, workerData, parentPort } from 'node:worker_threads';
 import { createRecordingReader } from '@/lib/signal/read/reader';
 import type { RawRecording } from '@/lib/signal/types';
 import { CHUNK_BYTES, countLines, pushFileBytes } from './analyze-read';
 
 /**
- * Below this size one thread is as fast (a worker costs ~0.1 s to start). scripts/analyze.mjs, which may start the
- * worker early, reads the same variable with the same default.
+ * Files from this size on are read on two threads; off unless STANCELINE_PARALLEL_PARSE_MIN_BYTES is set (tests set
+ * 0). Measured on the 2-core development machine (DEVELOPERS.md "Figures"), the second thread cost 0.2-0.3 s of CPU
+ * (its start-up, the JIT warming up in a second isolate, two threads faulting memory in at once) and saved no wall
+ * time on the 38 MB file, so the command reads on one thread. scripts/analyze.mjs reads the same variable.
  */
-export const PARALLEL_MIN_BYTES = Number(process.env.STANCELINE_PARALLEL_PARSE_MIN_BYTES ?? 16 * 1024 * 1024);
+export const PARALLEL_MIN_BYTES = Number(process.env.STANCELINE_PARALLEL_PARSE_MIN_BYTES ?? Infinity);
+
+/**
+ * A second thread pays only while a core is idle: on a busy machine it adds CPU time (its start-up, the planning, the
+ * cost of two threads faulting memory in at once) and saves no wall time (npm run bench:signal prints both). Idle
+ * here = no other task runnable right now (the 4th field of /proc/loadavg, running tasks, ourselves included),
+ * else the 1-minute load average below cores - 1 (a rule of thumb, common practice). The size threshold set to 0
+ * (tests) skips the check. scripts/analyze.mjs makes the same check before it starts the worker.
+ */
+export function coreIsFree(): boolean {
+  if (process.env.STANCELINE_PARALLEL_PARSE_MIN_BYTES === '0') return true;
+  const cores = availableParallelism();
+  if (cores < 2) return false;
+  try {
+    const running = Number(readFileSync('/proc/loadavg', 'latin1').split(' ')[3].split('/')[0]);
+    if (Number.isInteger(running) && running > 0) return running - 1 < cores - 1;
+  } catch {
+    // not Linux: the load average below
+  }
+  return loadavg()[0] < cores - 1;
+}
 
 /** Where scripts/analyze.mjs leaves a worker it started before the bundle loaded (see ReadWorker). */
 export const EARLY_WORKER = Symbol.for('stanceline.analyze.readWorker');
@@ -76,7 +98,8 @@ type Shared = {
   state: SharedArrayBuffer;
 };
 
-type Message = { kind: 'none' } | { kind: 'plan'; path: string; plan: Plan; shared: Shared } | { kind: 'done' };
+/** main -> worker: 'plan'; worker -> main: 'done' when it found no block left to take */
+type Message = { kind: 'plan'; path: string; plan: Plan; shared: Shared } | { kind: 'done' };
 
 /** A worker and the messages it sent so far (kept from its start, so none is lost while the bundle loads). */
 export interface ReadWorker {
@@ -227,47 +250,47 @@ function readBlocks(fd: number, buf: Buffer, plan: Plan, shared: Shared): void {
   }
 }
 
-/** The worker thread's side (workerData: { path }): plan, make the shared arrays, then read blocks. */
+/** The blocks and the shared arrays for them (the header, read once here, says which arrays there are), or null. */
+function prepare(fd: number, buf: Buffer): { plan: Plan; shared: Shared } | null {
+  const plan = planBlocks(fd, buf);
+  if (!plan) return null;
+  const shared: Shared = {
+    time: null,
+    impact: null,
+    sensors: [],
+    lines: new SharedArrayBuffer(plan.total * 4),
+    state: new SharedArrayBuffer(4 * (1 + plan.blocks.length)),
+  };
+  const header = createRecordingReader({
+    lines: plan.preambleLines + 1,
+    arrays: (column, rows) => {
+      if (column === 'lines') return new Uint32Array(rows);
+      const buffer = new SharedArrayBuffer(column === 'impact' ? plan.total : plan.total * 8);
+      if (column === 'time') shared.time = buffer;
+      else if (column === 'impact') shared.impact = buffer;
+      else shared.sensors[column.sensor] = buffer;
+      return column === 'impact' ? new Uint8Array(rows) : new Float64Array(rows);
+    },
+  });
+  header.push(plan.blocks[1].prefix!);
+  return shared.time && shared.sensors.length > 0 ? { plan, shared } : null;
+}
+
+/** The worker thread's side: waits for the main thread's plan, then takes blocks until none is left. */
 export function runParseWorker(): void {
-  const { path } = workerData as { path: string };
-  const post = (m: Message) => parentPort!.postMessage(m);
-  let planned = false;
-  let fd = -1;
-  try {
-    fd = openSync(path, 'r');
-    const buf = Buffer.allocUnsafeSlow(CHUNK_BYTES);
-    const plan = planBlocks(fd, buf);
-    if (!plan) return post({ kind: 'none' });
-    const shared: Shared = {
-      time: null,
-      impact: null,
-      sensors: [],
-      lines: new SharedArrayBuffer(plan.total * 4),
-      state: new SharedArrayBuffer(4 * (1 + plan.blocks.length)),
-    };
-    // the header, read once here, says which arrays there are
-    const header = createRecordingReader({
-      lines: plan.preambleLines + 1,
-      arrays: (column, rows) => {
-        if (column === 'lines') return new Uint32Array(rows);
-        const buffer = new SharedArrayBuffer(column === 'impact' ? plan.total : plan.total * 8);
-        if (column === 'time') shared.time = buffer;
-        else if (column === 'impact') shared.impact = buffer;
-        else shared.sensors[column.sensor] = buffer;
-        return column === 'impact' ? new Uint8Array(rows) : new Float64Array(rows);
-      },
-    });
-    header.push(plan.blocks[1].prefix!);
-    if (!shared.time || shared.sensors.length === 0) return post({ kind: 'none' });
-    post({ kind: 'plan', path, plan, shared });
-    planned = true;
-    readBlocks(fd, buf, plan, shared);
-    post({ kind: 'done' });
-  } catch {
-    post(planned ? { kind: 'done' } : { kind: 'none' });
-  } finally {
-    if (fd >= 0) closeSync(fd);
-  }
+  parentPort!.once('message', (m: Message) => {
+    if (m.kind !== 'plan') return;
+    let fd = -1;
+    try {
+      fd = openSync(m.path, 'r');
+      readBlocks(fd, Buffer.allocUnsafeSlow(CHUNK_BYTES), m.plan, m.shared);
+    } catch {
+      // a block taken and not read stays 0: the main thread sees it
+    } finally {
+      if (fd >= 0) closeSync(fd);
+    }
+    parentPort!.postMessage({ kind: 'done' } satisfies Message);
+  });
 }
 
 /** Starts the worker for `path`, keeping its messages (scripts/analyze.mjs does the same before the bundle loads). */
@@ -319,28 +342,34 @@ export async function readParallel(path: string, bundleUrl: URL): Promise<RawRec
   // the source version under tsx: node 20 does not hand tsx's loader to worker threads, so one thread reads
   if (bundleUrl.pathname.endsWith('.ts')) return null;
   if (!rw) {
-    if (availableParallelism() < 2 || statSync(path).size < PARALLEL_MIN_BYTES) return null;
+    if (statSync(path).size < PARALLEL_MIN_BYTES || !coreIsFree()) return null;
     rw = startReadWorker(path, new URL('./analyze-worker.mjs', bundleUrl));
   }
-  rw.worker.ref(); // an early worker was unref'd so that an unused one keeps nobody waiting
   let fd = -1;
   try {
-    const first = await nextMessage(rw);
-    if (!first || first.kind !== 'plan' || first.path !== path) return null;
-    const { plan, shared } = first;
+    fd = openSync(path, 'r');
     const buf = Buffer.allocUnsafeSlow(CHUNK_BYTES);
+    const prepared = prepare(fd, buf);
+    if (!prepared) return null;
+    const { plan, shared } = prepared;
+    // the worker joins whenever it is up; this thread starts at once with block 0
+    rw.worker.postMessage({ kind: 'plan', path, plan, shared } satisfies Message);
     let a: RawRecording | null;
     try {
-      fd = openSync(path, 'r');
       a = readBlock(fd, buf, plan, shared, 0);
       if (a) readBlocks(fd, buf, plan, shared);
     } catch {
       return null;
     }
-    const done = await nextMessage(rw);
+    if (!a) return null;
     const state = new Int32Array(shared.state);
-    if (!a || !done || done.kind !== 'done') return null;
-    for (let k = 1; k < plan.blocks.length; k++) if (Atomics.load(state, 1 + k) !== 1) return null;
+    const read = () => plan.blocks.every((_, k) => k === 0 || Atomics.load(state, 1 + k) === 1);
+    if (!read()) {
+      // a block the worker took and has not finished: wait for it (an early worker was unref'd)
+      rw.worker.ref();
+      while (!read() && (await nextMessage(rw)) !== null);
+      if (!read()) return null;
+    }
     // a developer's check that the two-thread path ran (never set by the command itself)
     if (process.env.STANCELINE_PARALLEL_PARSE_TRACE) {
       const cuts = plan.blocks.slice(1).map((b) => b.start);

@@ -138,8 +138,9 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const leadFoot = handedness === 'right' ? 'left' : 'right';
   const L = layout.foot_length_mm;
 
-  // Memory for the series: new arrays, or (consumeForces) the force arrays once filtered and summed. One buffer
-  // for every sensor's filtered force otherwise: only the sums are kept.
+  // Memory for the series: new arrays, or arrays whose values are no longer needed (`free`): with consumeForces the
+  // force arrays once filtered and summed; always the heel sums and moments once read. One buffer for every
+  // sensor's filtered force otherwise: only the sums are kept.
   const consume = params.consumeForces === true;
   const free: Float64Array[] = [];
   const alloc = () => free.pop() ?? new Float64Array(n);
@@ -210,12 +211,24 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
       copY[i] = NaN;
     }
   }
+  const leadPct = share(lead.n, totalN);
+  const leadHeelPct = share(lead.heel, lead.n);
+  const trailHeelPct = share(trail.heel, trail.n);
+  const leadToePct = toeShare(lead);
+  const trailToePct = toeShare(trail);
+  const leftCopX = ratio(acc.left.mx, acc.left.n);
+  const leftCopY = ratio(acc.left.my, acc.left.n);
+  const rightCopX = ratio(acc.right.mx, acc.right.n);
+  const rightCopY = ratio(acc.right.my, acc.right.n);
+  // the heel sums and the moments are read for the last time above: their memory serves the velocities
+  for (const foot of [acc.left, acc.right]) free.push(foot.heel, foot.mx, foot.my);
+
   const dt = 1 / fs;
   const velocity = (c: Float64Array) => {
     const bridged = bridgeNaN(c, alloc());
     if (!bridged) return alloc().fill(NaN);
     const v = savgolDerivative(bridged, window, polyOrder, dt, alloc());
-    if (consume) free.push(bridged);
+    free.push(bridged);
     for (let i = 0; i < n; i++) if (Number.isNaN(c[i])) v[i] = NaN;
     return v;
   };
@@ -233,15 +246,15 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
     leftN: acc.left.n,
     rightN: acc.right.n,
     totalN,
-    leadPct: share(lead.n, totalN),
-    leadHeelPct: share(lead.heel, lead.n),
-    trailHeelPct: share(trail.heel, trail.n),
-    leadToePct: toeShare(lead),
-    trailToePct: toeShare(trail),
-    leftCopX: ratio(acc.left.mx, acc.left.n),
-    leftCopY: ratio(acc.left.my, acc.left.n),
-    rightCopX: ratio(acc.right.mx, acc.right.n),
-    rightCopY: ratio(acc.right.my, acc.right.n),
+    leadPct,
+    leadHeelPct,
+    trailHeelPct,
+    leadToePct,
+    trailToePct,
+    leftCopX,
+    leftCopY,
+    rightCopX,
+    rightCopY,
     copX,
     copY,
     copVx,

@@ -18,10 +18,10 @@ export interface NominalRate {
   source: 'option' | 'metadata' | 'time-column';
 }
 
-/** Median of the time steps (s). */
-export function medianStep(time: Float64Array): number {
+/** Median of the time steps (s). `scratch`: an array of at least time.length - 1 values to work in (else a new one). */
+export function medianStep(time: Float64Array, scratch?: Float64Array): number {
   if (time.length < 2) throw new RangeError('need at least two time values');
-  const steps = new Float64Array(time.length - 1);
+  const steps = scratch && scratch.length >= time.length - 1 ? scratch.subarray(0, time.length - 1) : new Float64Array(time.length - 1);
   for (let i = 1; i < time.length; i++) steps[i - 1] = time[i] - time[i - 1];
   return medianInPlace(steps);
 }
@@ -31,14 +31,14 @@ export function medianStep(time: Float64Array): number {
  * column's median step (the spec: the time column rules). A median rate within 1e-6 of an integer is snapped to it,
  * so printed times like 0.0100 give exactly 100 Hz.
  */
-export function nominalRate(raw: RawRecording, sampleRateHz?: number): NominalRate {
+export function nominalRate(raw: RawRecording, sampleRateHz?: number, scratch?: Float64Array): NominalRate {
   if (sampleRateHz !== undefined) {
     if (!(Number.isFinite(sampleRateHz) && sampleRateHz > 0)) {
       throw new RangeError(`sampleRateHz must be a positive number, got ${sampleRateHz}`);
     }
     return { hz: sampleRateHz, source: 'option' };
   }
-  let fromTime = 1 / medianStep(raw.time);
+  let fromTime = 1 / medianStep(raw.time, scratch);
   const rounded = Math.round(fromTime);
   if (rounded > 0 && Math.abs(fromTime - rounded) <= 1e-6 * fromTime) fromTime = rounded;
   const meta = raw.metadata.sample_rate_hz !== undefined ? Number(raw.metadata.sample_rate_hz) : NaN;
@@ -138,7 +138,9 @@ export function regularise(
   const m = time.length;
   if (m < 2) throw new SignalInputError('too-few-samples', 'at least two samples are needed', { line: lines[0] ?? null });
   checkSensors(raw, layout);
-  const fs = nominalRate(raw, opts.sampleRateHz).hz;
+  // the median step's working copy becomes the grid when the grid fits in it (a uniform recording: n = m)
+  const scratch = new Float64Array(m);
+  const fs = nominalRate(raw, opts.sampleRateHz, scratch).hz;
   const gaps: Gap[] = [];
 
   for (let i = 1; i < m; i++) {
@@ -158,7 +160,7 @@ export function regularise(
   // Grid t0 + i / fs up to the last original time; bracket and weight computed once for all channels.
   const t0 = time[0];
   const n = Math.floor((time[m - 1] - t0) * fs + 1e-6) + 1;
-  const grid = new Float64Array(n);
+  const grid = n <= m ? scratch.subarray(0, n) : new Float64Array(n);
   const left = new Int32Array(n);
   const weight = new Float64Array(n);
   let j = 0;

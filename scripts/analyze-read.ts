@@ -60,7 +60,8 @@ export function readFileBytes(path: string, profile: ImportProfile | undefined):
     const stat = fstatSync(fd);
     if (!stat.isFile()) return null;
     const buf = Buffer.allocUnsafeSlow(Math.max(1, Math.min(CHUNK_BYTES, stat.size)));
-    const reader = createRecordingReader({ profile, lines: countLines(fd, 0, stat.size, buf) });
+    // sized from the file's size, not counted: no pass over the file before the reading one
+    const reader = createRecordingReader({ profile, bytes: stat.size });
     pushFileBytes(reader, fd, 0, stat.size, buf);
     return reader.end();
   } catch {

@@ -130,6 +130,11 @@ describe('pushBytes reads what push reads from the decoded text', () => {
     for (const lines of [1, 10, lineCount(bytes) - 3, lineCount(bytes) + 7, 10 * lineCount(bytes)]) {
       expect(comparable(run((r) => r.pushBytes(bytes), { lines }))).toEqual(reference);
     }
+    // a size in bytes instead (an upper bound on the rows): the same values, and so for rows of empty cells, which
+    // can be more than the bound (then the arrays grow as without a hint)
+    for (const size of [bytes.length, 100, 1]) expect(comparable(run((r) => r.pushBytes(bytes), { bytes: size }))).toEqual(reference);
+    const sparse = Buffer.from(`time_s,L1,R1\n${Array.from({ length: 200 }, (_, i) => `${i / 100},${i % 7 ? '' : i},${i}`).join('\n')}\n`);
+    expect(comparable(run((r) => r.pushBytes(sparse), { bytes: sparse.length / 4 }))).toEqual(comparable(run((r) => r.push(sparse.toString()))));
     // caller's arrays of exactly the hinted size: the result is those very arrays
     const given: ArrayBufferView[] = [];
     const out = run((r) => r.pushBytes(bytes), {

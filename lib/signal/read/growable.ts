@@ -22,6 +22,8 @@ export class Growable<T extends Float64Array | Uint32Array | Uint8Array> {
     private readonly ctor: TypedCtor<T>,
     capacity?: number,
     first?: T,
+    /** take() returns a view of the first block when it is the only one (a capacity that was an upper bound) */
+    private readonly viewOnTake = false,
   ) {
     this.block = first ?? new ctor(capacity !== undefined && capacity > 0 ? capacity : FIRST);
   }
@@ -68,6 +70,12 @@ export class Growable<T extends Float64Array | Uint32Array | Uint8Array> {
       this.block = new this.ctor(0);
       this.used = 0;
       return whole;
+    }
+    if (this.full.length === 0 && this.viewOnTake) {
+      const view = this.block.subarray(0, this.used) as T;
+      this.block = new this.ctor(0);
+      this.used = 0;
+      return view;
     }
     const out = new this.ctor(this.length);
     let at = 0;

@@ -53,6 +53,13 @@ export interface RecordingReaderOptions {
    */
   lines?: number;
   /**
+   * The input's size in bytes, when known and `lines` is not: the arrays are sized once for the most rows of plain
+   * cells that many bytes can hold (a character and a delimiter per field), and the results are views of them (the
+   * part never written is never touched, so it costs address space only). More rows than that (empty cells) grow
+   * the arrays as usual.
+   */
+  bytes?: number;
+  /**
    * Arrays of the caller's own for the data rows (for example views of memory shared with another thread): called
    * once per array when the data starts, with the row count that the `lines` hint leaves room for (only then), and
    * must return an array of zeros of that length and the column's type (Float64Array for the time and the sensors,
@@ -87,12 +94,18 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
   const startData = (p: ColumnPlan) => {
     plan = p;
     // at most one data row per line still to come (the header line, if any, is `line`)
-    const rows = opts.lines !== undefined && opts.lines > line ? opts.lines - (headerLine === line ? line : line - 1) : undefined;
+    const bound = opts.lines === undefined && opts.bytes !== undefined && opts.bytes > 0;
+    const rows =
+      opts.lines !== undefined && opts.lines > line
+        ? opts.lines - (headerLine === line ? line : line - 1)
+        : bound
+          ? Math.floor(opts.bytes! / (2 * (p.fieldCount ?? p.minFields))) + 1
+          : undefined;
     const given = rows !== undefined ? opts.arrays : undefined;
-    time = new Growable(Float64Array, rows, given?.('time', rows!) as Float64Array | undefined);
-    lines = new Growable(Uint32Array, rows, given?.('lines', rows!) as Uint32Array | undefined);
-    impact = p.impact >= 0 ? new Growable(Uint8Array, rows, given?.('impact', rows!) as Uint8Array | undefined) : null;
-    channels = p.sensors.map((_, c) => new Growable(Float64Array, rows, given?.({ sensor: c }, rows!) as Float64Array | undefined));
+    time = new Growable(Float64Array, rows, given?.('time', rows!) as Float64Array | undefined, bound);
+    lines = new Growable(Uint32Array, rows, given?.('lines', rows!) as Uint32Array | undefined, bound);
+    impact = p.impact >= 0 ? new Growable(Uint8Array, rows, given?.('impact', rows!) as Uint8Array | undefined, bound) : null;
+    channels = p.sensors.map((_, c) => new Growable(Float64Array, rows, given?.({ sensor: c }, rows!) as Float64Array | undefined, bound));
     if (rows !== undefined) {
       direct = {
         row: 0,

@@ -1,7 +1,7 @@
-// Reading a recording file for the analyze command as bytes: the file goes through one reused buffer twice, first
-// to count its lines (so the reader sizes its arrays once) and then to hand whole lines to the reader's byte
-// scanner (RecordingReader.pushBytes). No text of the whole file is ever made, and the only memory that grows with
-// the file is the arrays of the result. Anything unusual (not a regular file, a line longer than the buffer, any
+// Reading a recording file for the analyze command as bytes: the file goes once through one reused buffer, whole
+// lines handed to the reader's byte scanner (RecordingReader.pushBytes), its arrays sized from the file's size (the
+// `bytes` hint). No text of the whole file is ever made, and the only memory that grows with the file is the arrays
+// of the result. (countLines serves the two-thread reader, which needs exact row offsets.) Anything unusual (not a regular file, a line longer than the buffer, any
 // error of the reader) returns null: the command then reads the file as text with the stream reader, so its
 // messages stay exactly those of that reader.
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';

@@ -3,24 +3,19 @@
 //                           [--stance-width-mm N] [--cutoff-hz N] [--series SERIES.csv]
 // One JSON document on stdout, exit 0. A file it cannot read: one line on stderr naming line and column, exit 1.
 // A usage error (unknown option, bad option value): one line on stderr plus the usage, exit 2.
+//
+// Start-up: the modules are imported one by one, not through lib/signal's index, and the schema library (zod) is
+// loaded only when needed: for --layout or --profile, and for the message of a bad option value. The options are
+// checked by hand first with exactly the schema's rules (argsSchema), so a valid command line never loads it.
 import { createReadStream, createWriteStream, readFileSync } from 'node:fs';
 import { once } from 'node:events';
-import { isMainThread } from 'node:worker_threads';
-import { z } from 'zod';
-import {
-  analyzeRecording,
-  builtinLayout,
-  createRecordingReader,
-  parseLayout,
-  parseProfile,
-  roundAnalysis,
-  seriesCsvChunks,
-  SignalInputError,
-  type AnalysisOutput,
-  type ImportProfile,
-  type SensorLayout,
-} from '@/lib/signal';
-import { readParallel, runParseWorker } from './analyze-parallel';
+import { analyzeRecording, roundAnalysis, seriesCsvChunks, type AnalysisOutput } from '@/lib/signal/analyze';
+import { SignalInputError } from '@/lib/signal/errors';
+import { builtinLayout } from '@/lib/signal/layouts';
+import { createRecordingReader } from '@/lib/signal/read/reader';
+import type { ImportProfile, SensorLayout } from '@/lib/signal/types';
+import { dropEarlyWorker, readParallel } from './analyze-parallel';
+import { readFileBytes } from './analyze-read';
 
 const USAGE =
   'usage: npm run -s analyze -- FILE [--layout LAYOUT.json] [--profile PROFILE.json] [--handedness right|left] ' +
@@ -28,22 +23,50 @@ const USAGE =
 
 class UsageError extends Error {}
 
-const positive = (name: string) =>
-  z
-    .string()
-    .refine((s) => /^\s*[+]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/.test(s) && Number(s) > 0, `${name} must be a positive number`)
-    .transform(Number);
+const POSITIVE = /^\s*[+]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/;
+const isPositive = (s: string) => POSITIVE.test(s) && Number(s) > 0;
 
-const argsSchema = z.object({
-  file: z.string().min(1),
-  layout: z.string().min(1).optional(),
-  profile: z.string().min(1).optional(),
-  handedness: z.enum(['right', 'left'], { error: '--handedness must be right or left' }).optional(),
-  stanceWidthMm: positive('--stance-width-mm').optional(),
-  cutoffHz: positive('--cutoff-hz').optional(),
-  series: z.string().min(1).optional(),
-});
-type Args = z.infer<typeof argsSchema>;
+/** The rules of the command line as a schema: its messages are the command's (see validArgs for the fast check). */
+async function argsSchema() {
+  const { z } = await import('zod');
+  const positive = (name: string) => z.string().refine(isPositive, `${name} must be a positive number`).transform(Number);
+  return z.object({
+    file: z.string().min(1),
+    layout: z.string().min(1).optional(),
+    profile: z.string().min(1).optional(),
+    handedness: z.enum(['right', 'left'], { error: '--handedness must be right or left' }).optional(),
+    stanceWidthMm: positive('--stance-width-mm').optional(),
+    cutoffHz: positive('--cutoff-hz').optional(),
+    series: z.string().min(1).optional(),
+  });
+}
+
+type Args = {
+  file: string;
+  layout?: string;
+  profile?: string;
+  handedness?: 'right' | 'left';
+  stanceWidthMm?: number;
+  cutoffHz?: number;
+  series?: string;
+};
+
+/** argsSchema's rules checked by hand: the parsed arguments when they hold, else null (then the schema speaks). */
+function validArgs(raw: Record<string, string>): Args | null {
+  const { file, layout, profile, handedness, stanceWidthMm, cutoffHz, series } = raw;
+  const text = (v: string | undefined) => v === undefined || v.length >= 1;
+  if (!(file.length >= 1 && text(layout) && text(profile) && text(series))) return null;
+  if (handedness !== undefined && handedness !== 'right' && handedness !== 'left') return null;
+  for (const v of [stanceWidthMm, cutoffHz]) if (v !== undefined && !isPositive(v)) return null;
+  const args: Args = { file };
+  if (layout !== undefined) args.layout = layout;
+  if (profile !== undefined) args.profile = profile;
+  if (handedness !== undefined) args.handedness = handedness;
+  if (stanceWidthMm !== undefined) args.stanceWidthMm = Number(stanceWidthMm);
+  if (cutoffHz !== undefined) args.cutoffHz = Number(cutoffHz);
+  if (series !== undefined) args.series = series;
+  return args;
+}
 
 const OPTIONS: Record<string, keyof Omit<Args, 'file'>> = {
   '--layout': 'layout',
@@ -54,7 +77,7 @@ const OPTIONS: Record<string, keyof Omit<Args, 'file'>> = {
   '--series': 'series',
 };
 
-function parseArgs(argv: string[]): Args {
+async function parseArgs(argv: string[]): Promise<Args> {
   const raw: Record<string, string> = {};
   const files: string[] = [];
   for (let i = 0; i < argv.length; i++) {
@@ -72,7 +95,9 @@ function parseArgs(argv: string[]): Args {
     } else files.push(a);
   }
   if (files.length !== 1) throw new UsageError(files.length === 0 ? 'FILE is missing' : `one FILE expected, got ${files.length}`);
-  const r = argsSchema.safeParse({ ...raw, file: files[0] });
+  const valid = validArgs({ ...raw, file: files[0] });
+  if (valid) return valid;
+  const r = (await argsSchema()).safeParse({ ...raw, file: files[0] });
   if (!r.success) throw new UsageError(r.error.issues[0].message);
   return r.data;
 }
@@ -92,12 +117,18 @@ function readJson(path: string, what: string): unknown {
 }
 
 async function run(args: Args): Promise<AnalysisOutput> {
-  const profile: ImportProfile | undefined = args.profile ? parseProfile(readJson(args.profile, 'profile')) : undefined;
-  let layout: SensorLayout | undefined = args.layout ? parseLayout(readJson(args.layout, 'layout')) : undefined;
+  const schemas = args.profile || args.layout ? await import('@/lib/signal/read/schemas') : null;
+  const profile: ImportProfile | undefined = args.profile ? schemas!.parseProfile(readJson(args.profile, 'profile')) : undefined;
+  let layout: SensorLayout | undefined = args.layout ? schemas!.parseLayout(readJson(args.layout, 'layout')) : undefined;
 
-  // a large file without a profile is read on two threads when that works out (scripts/analyze-parallel.ts); the
-  // one-thread reader otherwise, and for every error, so messages stay exactly its own
-  const raw = (!profile && (await readParallel(args.file, new URL(import.meta.url)).catch(() => null))) || (await readOneThread(args.file, profile));
+  // a large file without a profile is read on two threads when that works out (scripts/analyze-parallel.ts), else as
+  // bytes on this thread (scripts/analyze-read.ts); the stream reader for anything else and for every error, so
+  // messages stay exactly its own
+  if (profile) dropEarlyWorker();
+  const raw =
+    (!profile && (await readParallel(args.file, new URL(import.meta.url)).catch(() => null))) ||
+    readFileBytes(args.file, profile) ||
+    (await readOneThread(args.file, profile));
 
   if (!layout) {
     const id = raw.metadata.layout;
@@ -109,6 +140,8 @@ async function run(args: Args): Promise<AnalysisOutput> {
     handedness: args.handedness,
     stanceWidthMm: args.stanceWidthMm,
     cutoffHz: args.cutoffHz,
+    reuseChannels: true, // raw is read for this analysis only
+    sensorWindows: false, // the command prints no per-sensor data
   });
 }
 
@@ -145,8 +178,9 @@ function oneLine(s: string): string {
 async function main(): Promise<number> {
   let args: Args;
   try {
-    args = parseArgs(process.argv.slice(2));
+    args = await parseArgs(process.argv.slice(2));
   } catch (e) {
+    dropEarlyWorker();
     process.stderr.write(`analyze: ${oneLine((e as Error).message)}\n${USAGE}\n`);
     return 2;
   }
@@ -173,9 +207,6 @@ async function main(): Promise<number> {
   }
 }
 
-// The same file is the worker thread that reads the second half of a large recording (scripts/analyze-parallel.ts).
-if (isMainThread) {
-  main().then((code) => {
-    process.exitCode = code;
-  });
-} else runParseWorker();
+main().then((code) => {
+  process.exitCode = code;
+});

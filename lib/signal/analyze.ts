@@ -36,6 +36,14 @@ export interface AnalyzeOptions {
   fallback?: { handedness?: Handedness; stanceWidthMm?: number };
   /** times (s) where a coach asked for a swing the finder rejected (promoteSwing) */
   promote?: readonly number[];
+  /**
+   * raw's channel arrays may be reused for the regularised forces (regularise's reuseChannels), and with
+   * sensorWindows false those for the derived series too (derive's consumeForces): for a caller that reads a
+   * recording only to analyse it once, such as the analyze command. The results are the same.
+   */
+  reuseChannels?: boolean;
+  /** false: no per-sensor windows (sensorWindows.forces stays empty), for a caller that does not use them */
+  sensorWindows?: boolean;
 }
 
 export type ParameterSource = 'option' | 'file' | 'fallback' | 'default';
@@ -51,7 +59,8 @@ export interface AnalysisOutput {
   series: DerivedSeries;
   /** every candidate the swing finder looked at, accepted or with its rejection reason */
   candidates: SwingCandidate[];
-  /** per-sensor filtered forces over each swing's window [start_s, end_s] (same order as result.swings) */
+  /** per-sensor filtered forces over each swing's window [start_s, end_s] (same order as result.swings; none with
+   *  the sensorWindows option false) */
   sensorWindows: SensorWindows;
   parameters: ParameterSources;
 }
@@ -76,7 +85,7 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
   const maxGapS = opts.maxGapS ?? DEFAULT_MAX_GAP_S;
   const cutoffHz = opts.cutoffHz ?? DEFAULT_DERIVE.cutoffHz;
 
-  const u = regularise(raw, layout, { sampleRateHz: opts.sampleRateHz, maxGapS });
+  const u = regularise(raw, layout, { sampleRateHz: opts.sampleRateHz, maxGapS, reuseChannels: opts.reuseChannels });
   const fs = u.sampleRateHz;
   const derivativeWindow = derivativeWindowFor(fs, DEFAULT_DERIVE.derivativeWindowS, DEFAULT_DERIVE.derivativePolyOrder);
   const series = derive(u, layout, {
@@ -86,6 +95,8 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     filterOrder: DEFAULT_DERIVE.filterOrder,
     derivativeWindow,
     derivativePolyOrder: DEFAULT_DERIVE.derivativePolyOrder,
+    // the forces' memory serves the series when raw is ours to reuse and nothing reads the forces afterwards
+    consumeForces: opts.reuseChannels === true && opts.sensorWindows === false,
   });
   detectionParams(stanceWidthMm, opts.detection); // validates overrides before the search
   const finderOpts = { stanceWidthMm, impact: u.impact, params: opts.detection };
@@ -111,7 +122,8 @@ export function analyzeRecording(raw: RawRecording, layout: SensorLayout, opts: 
     };
   });
 
-  const sensorWindows = sensorForceWindows(u, layout, cutoffHz, DEFAULT_DERIVE.filterOrder, swings.map((sw) => ({ from: sw.start, to: sw.end })));
+  const windows = opts.sensorWindows === false ? [] : swings.map((sw) => ({ from: sw.start, to: sw.end }));
+  const sensorWindows = sensorForceWindows(u, layout, cutoffHz, DEFAULT_DERIVE.filterOrder, windows);
 
   const n = t.length;
   const result: AnalysisResult = {

@@ -3,6 +3,7 @@
 import { SignalInputError } from './errors';
 import { DEFAULT_CUTOFF_HZ, DEFAULT_FILTER_ORDER, zeroLagLowpass, zeroLagMinSamples } from './filter';
 import { savgolDerivative } from './savgol';
+import { medianInPlace } from './select';
 import type { DerivedSeries, Handedness, Region, SensorLayout, SensorSpec, UniformRecording } from './types';
 export { toStanceFrame } from './stance-frame';
 
@@ -25,6 +26,12 @@ export interface DeriveParams {
   /** samples, odd; default: DEFAULT_DERIVE.derivativeWindowS worth of samples */
   derivativeWindow?: number;
   derivativePolyOrder?: number;
+  /**
+   * u.forces may be overwritten: each sensor is filtered in its own array, and the arrays then hold derive's own
+   * series instead of new ones (the same numbers; for a caller that regularised a recording only for this, such as
+   * the analyze command). u.forces no longer holds the forces afterwards, and the series' time is u.time itself.
+   */
+  consumeForces?: boolean;
 }
 
 /** Odd window of about `seconds` at fs, at least the smallest odd window longer than polyOrder + 1. */
@@ -56,15 +63,39 @@ export function copOf(forces: ArrayLike<number>, xs: ArrayLike<number>, ys: Arra
   return total > 0 ? { x: mx / total, y: my / total, total } : { x: NaN, y: NaN, total };
 }
 
-function median(x: Float64Array): number {
-  const s = x.slice().sort();
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+/** Adds one sensor's clamped force (max(f, 0)) to its foot's sums: force, heel force and the two moments. */
+function accumulate(
+  f: Float64Array,
+  sum: Float64Array,
+  heel: Float64Array | null,
+  mx: Float64Array,
+  my: Float64Array,
+  x: number,
+  y: number,
+): void {
+  const n = f.length;
+  if (heel) {
+    for (let i = 0; i < n; i++) {
+      const v = f[i] > 0 ? f[i] : 0;
+      sum[i] += v;
+      heel[i] += v;
+      mx[i] += v * x;
+      my[i] += v * y;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = f[i] > 0 ? f[i] : 0;
+      sum[i] += v;
+      mx[i] += v * x;
+      my[i] += v * y;
+    }
+  }
 }
 
-/** NaN runs filled for differentiation: linear inside, nearest value at the ends. Null when all NaN. */
-function bridgeNaN(x: Float64Array): Float64Array | null {
-  const y = x.slice();
+
+/** NaN runs filled for differentiation (into `y`): linear inside, nearest value at the ends. Null when all NaN. */
+function bridgeNaN(x: Float64Array, y: Float64Array): Float64Array | null {
+  y.set(x);
   const n = y.length;
   let prev = -1;
   for (let i = 0; i <= n; i++) {
@@ -107,43 +138,58 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const leadFoot = handedness === 'right' ? 'left' : 'right';
   const L = layout.foot_length_mm;
 
-  const acc = {
-    left: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
-    right: { n: new Float64Array(n), heel: new Float64Array(n), mx: new Float64Array(n), my: new Float64Array(n) },
-  };
+  // Memory for the series: new arrays, or arrays whose values are no longer needed (`free`): with consumeForces the
+  // force arrays once filtered and summed; always the heel sums and moments once read. One buffer for every
+  // sensor's filtered force otherwise: only the sums are kept.
+  const consume = params.consumeForces === true;
+  const free: Float64Array[] = [];
+  const alloc = () => free.pop() ?? new Float64Array(n);
+  if (consume) {
+    for (const sensor of layout.sensors) {
+      if (u.sensorIds.indexOf(sensor.id) < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
+    }
+  }
+  const scratch = consume ? null : new Float64Array(n);
+  // per foot: force, heel force and the two moments, made when the foot's first sensor comes (with consumeForces a
+  // foot whose sensors come after the other's sums into the arrays of the other's filtered forces)
+  type Sums = { n: Float64Array; heel: Float64Array; mx: Float64Array; my: Float64Array };
+  const zeroed = () => free.pop()?.fill(0) ?? new Float64Array(n);
+  const feet: { left?: Sums; right?: Sums } = {};
+  const sumsOf = (foot: 'left' | 'right'): Sums => (feet[foot] ??= { n: zeroed(), heel: zeroed(), mx: zeroed(), my: zeroed() });
   for (const sensor of layout.sensors) {
     const idx = u.sensorIds.indexOf(sensor.id);
     if (idx < 0) throw new SignalInputError('sensor-missing', `sensor ${sensor.id} of layout "${layout.id}" is not in the recording`);
     // Ringing of the filter at sharp unloading dips a little below 0; a sensor cannot pull, and negative weights
     // would push the COP outside the loaded sensors and the shares outside 0..100 %, so they are clamped to 0.
-    const f = zeroLagLowpass(u.forces[idx], fs, cutoff, order);
-    const a = acc[sensor.foot];
+    const x = u.forces[idx];
+    const f = scratch ?? (x.length === n ? x : x.subarray(0, n));
+    zeroLagLowpass(x, fs, cutoff, order, f);
+    const a = sumsOf(sensor.foot);
     const heel = sensorRegion(sensor, L) === 'heel';
-    for (let i = 0; i < n; i++) {
-      const v = f[i] > 0 ? f[i] : 0;
-      a.n[i] += v;
-      if (heel) a.heel[i] += v;
-      a.mx[i] += v * sensor.x_mm;
-      a.my[i] += v * sensor.y_mm;
-    }
+    accumulate(f, a.n, heel ? a.heel : null, a.mx, a.my, sensor.x_mm, sensor.y_mm);
+    if (consume) free.push(f);
   }
+  const acc = { left: sumsOf('left'), right: sumsOf('right') };
 
-  const totalN = new Float64Array(n);
+  const totalN = alloc();
   for (let i = 0; i < n; i++) totalN[i] = acc.left.n[i] + acc.right.n[i];
-  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * median(totalN));
+  const work = scratch ?? alloc(); // the median's working copy
+  work.set(totalN);
+  const minLoad = Math.max(DEFAULT_DERIVE.minLoadN, DEFAULT_DERIVE.minLoadFraction * medianInPlace(work));
+  if (consume) free.push(work);
 
   const share = (part: Float64Array, whole: Float64Array) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = whole[i] >= minLoad ? (part[i] / whole[i]) * 100 : NaN;
     return out;
   };
   const toeShare = (foot: typeof acc.left) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = foot.n[i] >= minLoad ? ((foot.n[i] - foot.heel[i]) / foot.n[i]) * 100 : NaN;
     return out;
   };
   const ratio = (m: Float64Array, w: Float64Array) => {
-    const out = new Float64Array(n);
+    const out = alloc();
     for (let i = 0; i < n; i++) out[i] = w[i] >= minLoad ? m[i] / w[i] : NaN;
     return out;
   };
@@ -152,8 +198,8 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
   const trail = acc[leadFoot === 'left' ? 'right' : 'left'];
   // Net COP = (COP_lead F_lead + COP_trail F_trail) / (F_lead + F_trail) (Winter 1995), from the moments directly,
   // so it is defined whenever the total carries load, even with one foot off the ground.
-  const copX = new Float64Array(n);
-  const copY = new Float64Array(n);
+  const copX = alloc();
+  const copY = alloc();
   const half = stanceWidthMm / 2;
   for (let i = 0; i < n; i++) {
     const t = totalN[i];
@@ -165,34 +211,50 @@ export function derive(u: UniformRecording, layout: SensorLayout, params: Derive
       copY[i] = NaN;
     }
   }
+  const leadPct = share(lead.n, totalN);
+  const leadHeelPct = share(lead.heel, lead.n);
+  const trailHeelPct = share(trail.heel, trail.n);
+  const leadToePct = toeShare(lead);
+  const trailToePct = toeShare(trail);
+  const leftCopX = ratio(acc.left.mx, acc.left.n);
+  const leftCopY = ratio(acc.left.my, acc.left.n);
+  const rightCopX = ratio(acc.right.mx, acc.right.n);
+  const rightCopY = ratio(acc.right.my, acc.right.n);
+  // the heel sums and the moments are read for the last time above: their memory serves the velocities
+  for (const foot of [acc.left, acc.right]) free.push(foot.heel, foot.mx, foot.my);
+
   const dt = 1 / fs;
   const velocity = (c: Float64Array) => {
-    const bridged = bridgeNaN(c);
-    if (!bridged) return new Float64Array(n).fill(NaN);
-    const v = savgolDerivative(bridged, window, polyOrder, dt);
+    const bridged = bridgeNaN(c, alloc());
+    if (!bridged) return alloc().fill(NaN);
+    const v = savgolDerivative(bridged, window, polyOrder, dt, alloc());
+    free.push(bridged);
     for (let i = 0; i < n; i++) if (Number.isNaN(c[i])) v[i] = NaN;
     return v;
   };
   const copVx = velocity(copX);
   const copVy = velocity(copY);
-  const copSpeed = new Float64Array(n);
+  const copSpeed = alloc();
   for (let i = 0; i < n; i++) copSpeed[i] = Math.hypot(copVx[i], copVy[i]);
 
+  // consumeForces: u is the caller's to give up, so its time axis is taken as it is
+  const time = consume ? u.time : alloc();
+  if (!consume) time.set(u.time);
   return {
     sampleRateHz: fs,
-    time: u.time.slice(),
+    time,
     leftN: acc.left.n,
     rightN: acc.right.n,
     totalN,
-    leadPct: share(lead.n, totalN),
-    leadHeelPct: share(lead.heel, lead.n),
-    trailHeelPct: share(trail.heel, trail.n),
-    leadToePct: toeShare(lead),
-    trailToePct: toeShare(trail),
-    leftCopX: ratio(acc.left.mx, acc.left.n),
-    leftCopY: ratio(acc.left.my, acc.left.n),
-    rightCopX: ratio(acc.right.mx, acc.right.n),
-    rightCopY: ratio(acc.right.my, acc.right.n),
+    leadPct,
+    leadHeelPct,
+    trailHeelPct,
+    leadToePct,
+    trailToePct,
+    leftCopX,
+    leftCopY,
+    rightCopX,
+    rightCopY,
     copX,
     copY,
     copVx,

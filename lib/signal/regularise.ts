@@ -1,6 +1,7 @@
 // From samples as read to a uniform grid in newtons: nominal rate, missing cells and short time gaps filled by
 // linear interpolation, linear resampling onto t0 + i / fs, kPa turned into N, the impact marker moved to the grid.
 import { SignalInputError } from './errors';
+import { medianInPlace } from './select';
 import type { Gap, RawRecording, SensorLayout, UniformRecording } from './types';
 
 /** Longest stretch (s) filled by interpolation: 0.1 s is 10 samples at 100 Hz, shorter than any swing phase. */
@@ -17,14 +18,12 @@ export interface NominalRate {
   source: 'option' | 'metadata' | 'time-column';
 }
 
-/** Median of the time steps (s). */
-export function medianStep(time: Float64Array): number {
+/** Median of the time steps (s). `scratch`: an array of at least time.length - 1 values to work in (else a new one). */
+export function medianStep(time: Float64Array, scratch?: Float64Array): number {
   if (time.length < 2) throw new RangeError('need at least two time values');
-  const steps = new Float64Array(time.length - 1);
+  const steps = scratch && scratch.length >= time.length - 1 ? scratch.subarray(0, time.length - 1) : new Float64Array(time.length - 1);
   for (let i = 1; i < time.length; i++) steps[i - 1] = time[i] - time[i - 1];
-  steps.sort();
-  const m = steps.length >> 1;
-  return steps.length % 2 ? steps[m] : (steps[m - 1] + steps[m]) / 2;
+  return medianInPlace(steps);
 }
 
 /**
@@ -32,14 +31,14 @@ export function medianStep(time: Float64Array): number {
  * column's median step (the spec: the time column rules). A median rate within 1e-6 of an integer is snapped to it,
  * so printed times like 0.0100 give exactly 100 Hz.
  */
-export function nominalRate(raw: RawRecording, sampleRateHz?: number): NominalRate {
+export function nominalRate(raw: RawRecording, sampleRateHz?: number, scratch?: Float64Array): NominalRate {
   if (sampleRateHz !== undefined) {
     if (!(Number.isFinite(sampleRateHz) && sampleRateHz > 0)) {
       throw new RangeError(`sampleRateHz must be a positive number, got ${sampleRateHz}`);
     }
     return { hz: sampleRateHz, source: 'option' };
   }
-  let fromTime = 1 / medianStep(raw.time);
+  let fromTime = 1 / medianStep(raw.time, scratch);
   const rounded = Math.round(fromTime);
   if (rounded > 0 && Math.abs(fromTime - rounded) <= 1e-6 * fromTime) fromTime = rounded;
   const meta = raw.metadata.sample_rate_hz !== undefined ? Number(raw.metadata.sample_rate_hz) : NaN;
@@ -67,12 +66,18 @@ function checkSensors(raw: RawRecording, layout: SensorLayout): void {
   }
 }
 
-/** A copy of one channel with its NaN runs linearly interpolated in time; pushes each filled run onto `gaps`. */
+/**
+ * One channel with its NaN runs linearly interpolated in time (a copy; the channel itself when it has none, as it is
+ * only read); pushes each filled run onto `gaps`.
+ */
 function fillChannel(raw: RawRecording, c: number, maxGapS: number, gaps: Gap[]): Float64Array {
   const { time, lines } = raw;
-  const x = raw.channels[c].slice();
-  const n = x.length;
+  const channel = raw.channels[c];
   let i = 0;
+  const n = channel.length;
+  while (i < n && channel[i] === channel[i]) i++;
+  if (i === n) return channel;
+  const x = channel.slice();
   while (i < n) {
     if (!Number.isNaN(x[i])) {
       i++;
@@ -117,7 +122,15 @@ const fmt = (v: number) => String(Math.round(v * 1e6) / 1e6);
 export function regularise(
   raw: RawRecording,
   layout: SensorLayout,
-  opts: { sampleRateHz?: number; maxGapS?: number } = {},
+  opts: {
+    sampleRateHz?: number;
+    maxGapS?: number;
+    /**
+     * The forces may be written over raw's channel arrays (the same numbers; a caller that reads a recording only
+     * to analyse it once saves a copy of every channel). raw's channels are then no longer the file's values.
+     */
+    reuseChannels?: boolean;
+  } = {},
 ): UniformRecording {
   const maxGapS = opts.maxGapS ?? DEFAULT_MAX_GAP_S;
   if (!(Number.isFinite(maxGapS) && maxGapS >= 0)) throw new RangeError(`maxGapS must be a non-negative number, got ${maxGapS}`);
@@ -125,7 +138,9 @@ export function regularise(
   const m = time.length;
   if (m < 2) throw new SignalInputError('too-few-samples', 'at least two samples are needed', { line: lines[0] ?? null });
   checkSensors(raw, layout);
-  const fs = nominalRate(raw, opts.sampleRateHz).hz;
+  // the median step's working copy becomes the grid when the grid fits in it (a uniform recording: n = m)
+  const scratch = new Float64Array(m);
+  const fs = nominalRate(raw, opts.sampleRateHz, scratch).hz;
   const gaps: Gap[] = [];
 
   for (let i = 1; i < m; i++) {
@@ -145,25 +160,33 @@ export function regularise(
   // Grid t0 + i / fs up to the last original time; bracket and weight computed once for all channels.
   const t0 = time[0];
   const n = Math.floor((time[m - 1] - t0) * fs + 1e-6) + 1;
-  const grid = new Float64Array(n);
+  const grid = n <= m ? scratch.subarray(0, n) : new Float64Array(n);
   const left = new Int32Array(n);
   const weight = new Float64Array(n);
   let j = 0;
+  // In place (reuseChannels) when no grid point but the last reads a sample before its own index: the loop below
+  // then never reads a value it has already replaced; the last point is worked out before the loop.
+  let ahead = n <= m;
   for (let i = 0; i < n; i++) {
     const t = t0 + i / fs;
     grid[i] = t;
     while (j < m - 2 && time[j + 1] <= t) j++;
     left[i] = j;
     weight[i] = Math.min(1, Math.max(0, (t - time[j]) / (time[j + 1] - time[j])));
+    if (j < i && i < n - 1) ahead = false;
   }
   const forces = filled.map((x, c) => {
     const scale = raw.units === 'kPa' ? areaById.get(raw.sensorIds[c])! * KPA_MM2_TO_N : 1;
-    const out = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
+    const inPlace = opts.reuseChannels === true && ahead;
+    const out = inPlace ? x : new Float64Array(n);
+    const k = left[n - 1];
+    const last = (x[k] + (x[k + 1] - x[k]) * weight[n - 1]) * scale;
+    for (let i = 0; i < n - 1; i++) {
       const k = left[i];
       out[i] = (x[k] + (x[k + 1] - x[k]) * weight[i]) * scale;
     }
-    return out;
+    out[n - 1] = last;
+    return inPlace && n < m ? out.subarray(0, n) : out;
   });
 
   let impact: Uint8Array | null = null;

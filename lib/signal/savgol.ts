@@ -43,14 +43,18 @@ export function savgolCoefficients(window: number, polyOrder: number, deriv: num
   return savgolWeightsAt(window, polyOrder, deriv, delta, pos).reverse();
 }
 
-/** Savitzky-Golay filtered deriv-th derivative of x (new array), scipy's savgol_filter(..., mode='interp'). */
-export function savgolFilter(x: Float64Array, window: number, polyOrder: number, deriv: number, delta = 1): Float64Array {
+/**
+ * Savitzky-Golay filtered deriv-th derivative of x (a new array, or `out` when given: x.length values, not x),
+ * scipy's savgol_filter(..., mode='interp').
+ */
+export function savgolFilter(x: Float64Array, window: number, polyOrder: number, deriv: number, delta = 1, out?: Float64Array): Float64Array {
   checkWindow(window, polyOrder, deriv, delta);
   if (window % 2 === 0) throw new RangeError(`window must be odd, got ${window}`);
   const n = x.length;
   if (n < window) throw new RangeError(`the signal has ${n} samples; the window of ${window} needs at least that many`);
+  if (out && (out.length !== n || out === x)) throw new RangeError('out must be a separate array of x.length values');
   const half = (window - 1) / 2;
-  const y = new Float64Array(n);
+  const y = out ?? new Float64Array(n);
   const centre = savgolWeightsAt(window, polyOrder, deriv, delta, half);
   for (let i = half; i < n - half; i++) {
     let acc = 0;
@@ -75,6 +79,6 @@ export function savgolFilter(x: Float64Array, window: number, polyOrder: number,
 }
 
 /** First derivative of x sampled every dt seconds, Savitzky-Golay smoothed (units of x per second). */
-export function savgolDerivative(x: Float64Array, window: number, polyOrder: number, dt: number): Float64Array {
-  return savgolFilter(x, window, polyOrder, 1, dt);
+export function savgolDerivative(x: Float64Array, window: number, polyOrder: number, dt: number, out?: Float64Array): Float64Array {
+  return savgolFilter(x, window, polyOrder, 1, dt, out);
 }

@@ -18,10 +18,12 @@ beforeAll(() => {
   expect(r.status, r.stderr).toBe(0);
 });
 
-function run(kind: 'source' | 'compiled' | 'two-threads', args: string[]) {
+function run(kind: 'source' | 'compiled' | 'two-threads' | 'many-blocks', args: string[]) {
   const entry = kind === 'source' ? ['--import', 'tsx', 'scripts/analyze.ts'] : ['scripts/analyze.mjs'];
-  // two-threads: the compiled command with its two-thread reader forced on for small files, and a trace line
-  const env = kind === 'two-threads' ? { ...process.env, STANCELINE_PARALLEL_PARSE_MIN_BYTES: '0', STANCELINE_PARALLEL_PARSE_TRACE: '1' } : process.env;
+  // two-threads: the compiled command with its two-thread reader forced on for small files (two blocks), and a
+  // trace line; many-blocks: the same with blocks of 16 KB (dozens of blocks, both threads taking turns)
+  const forced = { ...process.env, STANCELINE_PARALLEL_PARSE_MIN_BYTES: '0', STANCELINE_PARALLEL_PARSE_TRACE: '1' };
+  const env = kind === 'two-threads' ? forced : kind === 'many-blocks' ? { ...forced, STANCELINE_PARALLEL_PARSE_BLOCK_BYTES: '16384' } : process.env;
   const r = spawnSync(process.execPath, [...entry, ...args], { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 << 20, env });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
@@ -39,8 +41,9 @@ const bad = join(dir, 'bad.csv');
   lines[30] = cells.join(',');
   writeFileSync(bad, lines.join('\n'));
 }
-const TRACE = /^analyze: read on two threads, cut at byte \d+\n/m;
-// the row just after the middle byte (where the two-thread reader cuts) goes back in time, and a bad cell near the end
+const TRACE = /^analyze: read on two threads, \d+ blocks cut at bytes \d+(, \d+)*\n/m;
+// the row just after the middle byte (where the two-thread reader cuts a small file in two blocks) goes back in time,
+// and a bad cell near the end
 const backAtCut = join(dir, 'back-at-cut.csv');
 const badLate = join(dir, 'bad-late.csv');
 {
@@ -103,6 +106,22 @@ describe('the compiled analyze command', () => {
     expect(two.stderr.replace(TRACE, '')).toBe(source.stderr);
     expect(two.stdout).toBe(source.stdout);
     if (!joined) expect(source.code).toBe(1);
+  });
+
+  it.each([
+    ['generated golf session', [golf], true],
+    ['left-handed, other cutoff', [unmarked, '--handedness', 'left', '--cutoff-hz=12'], true],
+    ['a bad cell near the end', [badLate], false],
+    ['a malformed file', [bad], false],
+  ] as [string, string[], boolean][])('read in many blocks on two threads, %s: the same output as the source version', (_label, args, joined) => {
+    const source = run('source', args);
+    const blocks = run('many-blocks', args);
+    const trace = /^analyze: read on two threads, (\d+) blocks cut at bytes [\d, ]+\n/m.exec(blocks.stderr);
+    expect(trace !== null).toBe(joined);
+    if (trace) expect(Number(trace[1])).toBeGreaterThan(10);
+    expect(blocks.code).toBe(source.code);
+    expect(blocks.stderr.replace(TRACE, '')).toBe(source.stderr);
+    expect(blocks.stdout).toBe(source.stdout);
   });
 
   it('writes a byte-identical --series file', () => {

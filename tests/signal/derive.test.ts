@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { copOf, DEFAULT_DERIVE, derivativeWindowFor, derive, sensorRegion, toStanceFrame } from '@/lib/signal/derive';
 import { SignalInputError } from '@/lib/signal/errors';
 import { zeroLagLowpass } from '@/lib/signal/filter';
-import { BUILTIN_LAYOUTS, builtinLayout } from '@/lib/signal/layouts';
+import { BUILTIN_LAYOUT_FILES, BUILTIN_LAYOUTS, builtinLayout } from '@/lib/signal/layouts';
 import { parseLayout } from '@/lib/signal/read';
 import type { SensorLayout, UniformRecording } from '@/lib/signal/types';
 
@@ -154,5 +154,11 @@ describe('regions and built-in layouts', () => {
     }
     expect(builtinLayout('nope')).toBeUndefined();
     expect(Object.keys(BUILTIN_LAYOUTS)).toEqual(['pair-8', 'pair-16']);
+  });
+  it('ships layout files that the layout schema accepts unchanged (they are not parsed at start-up)', () => {
+    for (const id of ['pair-8', 'pair-16']) {
+      expect(parseLayout(BUILTIN_LAYOUT_FILES[id])).toEqual(BUILTIN_LAYOUTS[id]);
+      expect(Object.isFrozen(BUILTIN_LAYOUTS[id].sensors[0])).toBe(true);
+    }
   });
 });

@@ -113,3 +113,33 @@ describe('regularise(raw, layout, opts)', () => {
     expect(errorOf(() => regularise(fewer, layout)).message).toContain('R1');
   });
 });
+
+describe('regularise with reuseChannels (the analyze command: raw is read for one analysis)', () => {
+  // The reference is regularise without the option on a fresh read of the same text: the forces must be the same
+  // bytes; with the option, raw's channels may hold them instead of copies.
+  const hex = (a: Float64Array) => Buffer.from(a.buffer, a.byteOffset, a.byteLength).toString('hex');
+  const jitter = [0];
+  for (let i = 1; i < 60; i++) jitter.push(Number((jitter[i - 1] + (i % 3 === 0 ? 0.0099 : 0.0101)).toFixed(4)));
+  const cases: [string, string][] = [
+    ['uniform', csv(range(40), (i) => (7.3 * i) % 11)],
+    ['jittery time (some grid points read samples behind them)', csv(jitter, (i) => (5.1 * i) % 13)],
+    ['a missing cell and a short time gap', csv([...range(10), ...range(10, 0.01, 0.14)], (i) => (i === 4 ? '' : (3.7 * i) % 9))],
+    ['kPa', csv(range(30), (i) => 1.1 * i, ['# units: kPa'])],
+    ['a denser grid than the samples (an option rate above the file rate)', csv(range(30, 0.02), (i) => (2.9 * i) % 7)],
+  ];
+  it.each(cases)('%s: the same forces', (_name, text) => {
+    const rate = _name.startsWith('a denser') ? 100 : undefined;
+    const reference = regularise(parseRecording(text), layout, { sampleRateHz: rate });
+    const raw = parseRecording(text);
+    const u = regularise(raw, layout, { sampleRateHz: rate, reuseChannels: true });
+    expect(u.forces.map(hex)).toEqual(reference.forces.map(hex));
+    expect(hex(u.time)).toEqual(hex(reference.time));
+    expect(u.gaps).toEqual(reference.gaps);
+  });
+
+  it('reuses the channel arrays of a uniform recording', () => {
+    const raw = parseRecording(csv(range(40), (i) => i));
+    const u = regularise(raw, layout, { reuseChannels: true });
+    expect(u.forces[0].buffer).toBe(raw.channels[0].buffer);
+  });
+});

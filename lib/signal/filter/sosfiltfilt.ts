@@ -96,8 +96,10 @@ export function defaultPadlen(sos: readonly Biquad[]): number {
  * Zero-phase filtering, forward then backward, as scipy.signal.sosfiltfilt(sos, x, padtype='odd', padlen):
  * the signal is extended at each end by `padlen` samples of odd reflection (2 x[0] - x[k]), each pass starts from
  * sosfilt_zi scaled by its first value, and the padding is cut off again. Needs x.length > padlen.
+ * The result goes into `out` when given (x.length values, may be x itself; a caller filtering many channels reuses
+ * one buffer instead of allocating one per channel), else into a new array.
  */
-export function sosfiltfilt(sos: readonly Biquad[], x: Float64Array, padlen?: number): Float64Array {
+export function sosfiltfilt(sos: readonly Biquad[], x: Float64Array, padlen?: number, out?: Float64Array): Float64Array {
   checkSos(sos);
   const edge = padlen ?? defaultPadlen(sos);
   if (!Number.isInteger(edge) || edge < 0) throw new RangeError(`padlen must be a non-negative integer, got ${padlen}`);
@@ -114,7 +116,13 @@ export function sosfiltfilt(sos: readonly Biquad[], x: Float64Array, padlen?: nu
     left[i] = 2 * first - x[edge - i];
     right[i] = 2 * last - x[n - 2 - i];
   }
-  const y = x.slice();
+  if (out && out.length !== n) throw new RangeError(`out has ${out.length} values, x ${n}`);
+  let y: Float64Array;
+  if (!out) y = x.slice();
+  else {
+    if (out !== x) out.set(x);
+    y = out;
+  }
   const zi = sosfiltZi(sos);
   runInPlace(sos, [left, y, right], zi, false);
   runInPlace(sos, [left, y, right], zi, true);

@@ -16,16 +16,15 @@ export interface StillnessThresholds {
 const BLOCK_S = 0.25;
 const PERCENTILE = 0.1;
 
-function medianOf(v: Float64Array): number {
-  const s = v.slice().sort();
-  return s.length ? s[s.length >> 1] : NaN;
-}
-
 export function noiseFloor(speed: Float64Array, fs: number): number {
   const block = Math.max(3, Math.round(BLOCK_S * fs));
   const medians: number[] = [];
+  const finite = new Float64Array(block); // one block's finite values, reused for every block
   for (let a = 0; a + block <= speed.length; a += block) {
-    const m = medianOf(speed.subarray(a, a + block).filter(Number.isFinite));
+    let k = 0;
+    for (let i = a; i < a + block; i++) if (Number.isFinite(speed[i])) finite[k++] = speed[i];
+    // the upper median of the block's finite values (none: no median)
+    const m = k ? finite.subarray(0, k).sort()[k >> 1] : NaN;
     if (Number.isFinite(m)) medians.push(m);
   }
   if (medians.length === 0) return 0;

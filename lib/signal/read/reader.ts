@@ -33,10 +33,45 @@ export const MAX_NEGATIVE_READING = 10;
 
 export interface RecordingReader {
   push(chunk: string): void;
+  /**
+   * The same as push() of these bytes decoded as UTF-8, for bytes that end on a whole character (a whole file, or a
+   * piece that ends just after a newline). The common data line is read from the bytes themselves; only the other
+   * lines (the preamble, anything the fast scanner leaves) are decoded into strings.
+   */
+  pushBytes(chunk: Uint8Array): void;
   end(): RawRecording;
 }
 
-export function createRecordingReader(opts: { profile?: ImportProfile; /** off: every line through papaparse (tests) */ fastScan?: boolean } = {}): RecordingReader {
+export interface RecordingReaderOptions {
+  profile?: ImportProfile;
+  /** off: every line through papaparse (tests) */
+  fastScan?: boolean;
+  /**
+   * The input's number of lines when known in advance (its newline characters, plus one when the last line has
+   * none): the arrays are then sized once for the data rows instead of grown and copied. Only a hint: a wrong
+   * count changes no result.
+   */
+  lines?: number;
+  /**
+   * The input's size in bytes, when known and `lines` is not: the arrays are sized once for the most rows of plain
+   * cells that many bytes can hold (a character and a delimiter per field), and the results are views of them (the
+   * part never written is never touched, so it costs address space only). More rows than that (empty cells) grow
+   * the arrays as usual.
+   */
+  bytes?: number;
+  /**
+   * Arrays of the caller's own for the data rows (for example views of memory shared with another thread): called
+   * once per array when the data starts, with the row count that the `lines` hint leaves room for (only then), and
+   * must return an array of zeros of that length and the column's type (Float64Array for the time and the sensors,
+   * Uint32Array for the line numbers, Uint8Array for the impact marker). Rows beyond it go to the reader's own arrays.
+   */
+  arrays?: (column: 'time' | 'lines' | 'impact' | { sensor: number }, rows: number) => Float64Array | Uint32Array | Uint8Array;
+}
+
+/** UTF-8 to text for the lines not read from bytes; a BOM stays a character, as in push() after the first chunk. */
+const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
+
+export function createRecordingReader(opts: RecordingReaderOptions = {}): RecordingReader {
   const profile = opts.profile;
   const fastEnabled = opts.fastScan !== false;
   const metadata: Record<string, string> = {};
@@ -58,10 +93,52 @@ export function createRecordingReader(opts: { profile?: ImportProfile; /** off: 
 
   const startData = (p: ColumnPlan) => {
     plan = p;
-    time = new Growable(Float64Array);
-    lines = new Growable(Uint32Array);
-    impact = p.impact >= 0 ? new Growable(Uint8Array) : null;
-    channels = p.sensors.map(() => new Growable(Float64Array));
+    // at most one data row per line still to come (the header line, if any, is `line`)
+    const bound = opts.lines === undefined && opts.bytes !== undefined && opts.bytes > 0;
+    const rows =
+      opts.lines !== undefined && opts.lines > line
+        ? opts.lines - (headerLine === line ? line : line - 1)
+        : bound
+          ? Math.floor(opts.bytes! / (2 * (p.fieldCount ?? p.minFields))) + 1
+          : undefined;
+    const given = rows !== undefined ? opts.arrays : undefined;
+    time = new Growable(Float64Array, rows, given?.('time', rows!) as Float64Array | undefined, bound);
+    lines = new Growable(Uint32Array, rows, given?.('lines', rows!) as Uint32Array | undefined, bound);
+    impact = p.impact >= 0 ? new Growable(Uint8Array, rows, given?.('impact', rows!) as Uint8Array | undefined, bound) : null;
+    channels = p.sensors.map((_, c) => new Growable(Float64Array, rows, given?.({ sensor: c }, rows!) as Float64Array | undefined, bound));
+    if (rows !== undefined) {
+      direct = {
+        row: 0,
+        limit: rows,
+        time: time.current,
+        lines: lines.current,
+        impact: impact ? impact.current : null,
+        channels: channels.map((g) => g.current),
+      };
+    }
+  };
+
+  /**
+   * Rows written by fastLineBytes straight into the arrays sized from the `lines` hint (no call per value: a double
+   * handed to a method is boxed, and 16 of them per line kept the young generation busy). Every other way of adding
+   * a row first hands the count back to the Growables (endDirect) and then pushes as usual.
+   */
+  let direct: {
+    row: number;
+    limit: number;
+    time: Float64Array;
+    lines: Uint32Array;
+    impact: Uint8Array | null;
+    channels: Float64Array[];
+  } | null = null;
+  const endDirect = () => {
+    if (!direct) return;
+    const rows = direct.row;
+    direct = null;
+    time!.grow(rows);
+    lines!.grow(rows);
+    impact?.grow(rows);
+    for (const c of channels) c.grow(rows);
   };
 
   const setDelimiter = (firstLine: string) => {
@@ -109,6 +186,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile; /** off: 
   };
 
   const dataRow = (fields: string[], p: ColumnPlan) => {
+    endDirect();
     line++;
     const count = fields.length;
     stripCr(fields);
@@ -258,6 +336,7 @@ export function createRecordingReader(opts: { profile?: ImportProfile; /** off: 
       if (v !== 0 && v !== 1) return false;
     }
     // accepted: the same effects as dataRow for this line
+    endDirect();
     line++;
     lastContentLine = line;
     prevTime = ts;
@@ -266,6 +345,105 @@ export function createRecordingReader(opts: { profile?: ImportProfile; /** off: 
     time!.push(ts);
     lines!.push(line);
     return true;
+  };
+
+  /**
+   * fastLine over UTF-8 bytes [from, end) of one line: the same grammar, arithmetic, checks and effects (a line it
+   * reads is all ASCII, where a byte is the character). False leaves the line to the text path.
+   */
+  const fastLineBytes = (bytes: Uint8Array, from: number, end: number, p: ColumnPlan): boolean => {
+    const want = p.fieldCount;
+    if (want === null || want < p.minFields) return false;
+    if (end > from && bytes[end - 1] === 13) end--;
+    if (end <= from) return false;
+    if (cells.length !== want) cells = new Float64Array(want);
+    let k = 0;
+    let i = from;
+    const comma = decimalComma;
+    const delim = fastCode;
+    for (;;) {
+      if (k === want) return false;
+      let c = bytes[i];
+      const neg = c === 45;
+      if (neg || c === 43) i++;
+      let m = 0;
+      let digits = 0;
+      let point = -1;
+      let isComma = false;
+      for (; i < end; i++) {
+        c = bytes[i];
+        const d = c - 48;
+        if (d >= 0 && d <= 9) {
+          m = m * 10 + d;
+          digits++;
+        } else if (c === delim) break;
+        else if (point < 0 && (c === 46 || (c === 44 && comma))) {
+          point = digits;
+          isComma = c === 44;
+        } else return false;
+      }
+      if (digits === 0 || digits > 15) return false;
+      if (isComma && (point === 0 || point === digits)) return false;
+      const v = point < 0 ? m : m / POW10[digits - point];
+      cells[k++] = neg ? -v : v;
+      if (i >= end) break;
+      i++;
+      if (i >= end) return false;
+    }
+    if (k !== want) return false;
+    const ts = cells[p.time] * p.timeScale;
+    if (!(ts > prevTime)) return false;
+    const sensors = p.sensors;
+    for (let c = 0; c < sensors.length; c++) if (cells[sensors[c]] < -MAX_NEGATIVE_READING) return false;
+    if (impact) {
+      const v = cells[p.impact];
+      if (v !== 0 && v !== 1) return false;
+    }
+    line++;
+    lastContentLine = line;
+    prevTime = ts;
+    const d = direct;
+    if (d !== null && d.row < d.limit) {
+      const r = d.row++;
+      const out = d.channels;
+      for (let c = 0; c < sensors.length; c++) out[c][r] = cells[sensors[c]];
+      if (d.impact) d.impact[r] = cells[p.impact] === 1 ? 1 : 0;
+      d.time[r] = ts;
+      d.lines[r] = line;
+      return true;
+    }
+    endDirect();
+    for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
+    if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
+    time!.push(ts);
+    lines!.push(line);
+    return true;
+  };
+
+  /**
+   * Whole lines of bytes: [from, to) where bytes[to] is the newline that ends the last of them. Line by line as
+   * block() takes them: the preamble as text, then each data line from the bytes when fastLineBytes reads it, else
+   * as text through dataText (which sees one line, as scanPiece hands on one line). Without the fast scanner
+   * (a delimiter it cannot use) the data lines go to block() as one text.
+   */
+  const byteLines = (bytes: Uint8Array, from: number, to: number) => {
+    let s = from;
+    while (s <= to && !plan) {
+      const e = bytes.indexOf(10, s);
+      block(utf8.decode(bytes.subarray(s, e)));
+      s = e + 1;
+    }
+    if (s > to) return;
+    const p = plan as unknown as ColumnPlan;
+    if (!fast) {
+      block(utf8.decode(bytes.subarray(s, to)));
+      return;
+    }
+    while (s <= to) {
+      const e = bytes.indexOf(10, s);
+      if (e - s > MAX_LINE_CHARS || !fastLineBytes(bytes, s, e, p)) dataText(utf8.decode(bytes.subarray(s, e)));
+      s = e + 1;
+    }
   };
 
   /** Whole data lines, tokenised a piece of about PIECE characters at a time (see PIECE). */
@@ -289,30 +467,58 @@ export function createRecordingReader(opts: { profile?: ImportProfile; /** off: 
     }
   };
 
+  const push = (chunk: string) => {
+    if (ended) throw new RangeError('push() after end()');
+    if (!started && chunk.length > 0) {
+      started = true;
+      if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
+    }
+    const nl = chunk.lastIndexOf('\n');
+    if (nl < 0) {
+      pending += chunk;
+      if (pending.length > MAX_LINE_CHARS) checkLine(pending, line + 1);
+      return;
+    }
+    if (pending.length + chunk.indexOf('\n') > MAX_LINE_CHARS) checkLine(pending + chunk.slice(0, chunk.indexOf('\n')), line + 1);
+    // The carried-over partial line ends at the chunk's first newline; the lines after it are handed on as a
+    // slice of the chunk, so the chunk's text is never copied.
+    const first = chunk.indexOf('\n');
+    block(pending + chunk.slice(0, first));
+    if (first < nl) block(chunk.slice(first + 1, nl));
+    pending = chunk.slice(nl + 1);
+  };
+
+  const pushBytes = (input: Uint8Array) => {
+    if (ended) throw new RangeError('push() after end()');
+    // a plain Uint8Array view: a subclass's own indexOf (Node's Buffer) is slower per call and allocates
+    const chunk = Object.getPrototypeOf(input) === Uint8Array.prototype ? input : new Uint8Array(input.buffer, input.byteOffset, input.byteLength);
+    let from = 0;
+    if (!started && chunk.length > 0) {
+      started = true;
+      if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) from = 3; // the BOM, as push() drops U+FEFF
+    }
+    const nl = chunk.lastIndexOf(10);
+    if (nl < from) {
+      push(utf8.decode(chunk.subarray(from)));
+      return;
+    }
+    const first = chunk.indexOf(10, from);
+    if (pending !== '') {
+      // the carried-over partial line ends at the first newline: push() joins and checks it
+      push(utf8.decode(chunk.subarray(from, first + 1)));
+      from = first + 1;
+    }
+    if (from <= nl) byteLines(chunk, from, nl);
+    pending = utf8.decode(chunk.subarray(nl + 1));
+  };
+
   return {
-    push(chunk: string) {
-      if (ended) throw new RangeError('push() after end()');
-      if (!started && chunk.length > 0) {
-        started = true;
-        if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
-      }
-      const nl = chunk.lastIndexOf('\n');
-      if (nl < 0) {
-        pending += chunk;
-        if (pending.length > MAX_LINE_CHARS) checkLine(pending, line + 1);
-        return;
-      }
-      if (pending.length + chunk.indexOf('\n') > MAX_LINE_CHARS) checkLine(pending + chunk.slice(0, chunk.indexOf('\n')), line + 1);
-      // The carried-over partial line ends at the chunk's first newline; the lines after it are handed on as a
-      // slice of the chunk, so the chunk's text is never copied.
-      const first = chunk.indexOf('\n');
-      block(pending + chunk.slice(0, first));
-      if (first < nl) block(chunk.slice(first + 1, nl));
-      pending = chunk.slice(nl + 1);
-    },
+    push,
+    pushBytes,
     end(): RawRecording {
       if (ended) throw new RangeError('end() called twice');
       ended = true;
+      endDirect();
       if (pending !== '') {
         checkLine(pending, line + 1);
         block(pending);

@@ -1,6 +1,6 @@
 // Benchmark of the API under load (npm run bench:api). Prints figures beside the issue's targets; asserts nothing.
 // One throwaway app (MariaDB, local fakes, `next start` on a free port, built first when sources changed), in one run:
-// 1. autocannon (50 connections, 10 s each) on a static file, GET /api/health (a route handler that does nothing: the
+// 1. autocannon (50 connections, 10 s each, after a 4 s warm-up of each URL) on a static file, GET /api/health (a route handler that does nothing: the
 //    floor of any route), GET /api/me, GET /api/recordings/:id and GET /api/swings/:id (a generated 10-minute lesson
 //    uploaded first), req/s and p50/p99, ratios to the static file;
 // 2. GET /api/me while a generated 60-minute lesson (100 Hz, 8 sensors per foot) is processed, under the same load
@@ -23,6 +23,7 @@ const TARGET = { swingsVsMe: 0.5, meVsStatic: 0.6, meP99DuringUploadMs: 150, rea
 const CONNECTIONS = 50;
 const LIGHT_CONNECTIONS = 5;
 const SECONDS = 10;
+const WARM_UP_SECONDS = 4;
 const root = process.cwd();
 
 type Load = { rps: number; p50: number; p99: number; total: number; non2xx: number; errors: number };
@@ -118,8 +119,18 @@ async function main(): Promise<void> {
     const swing = await coach.fetch(`/api/swings/${swingId}`);
     const swingBytes = (await swing.arrayBuffer()).byteLength;
 
-    console.log(`\n## ${CONNECTIONS} connections, ${SECONDS} s each, one server (${base})`);
+    console.log(`\n## ${CONNECTIONS} connections, ${SECONDS} s each after a ${WARM_UP_SECONDS} s warm-up of each, one server (${base})`);
     console.log(`GET /api/swings/${swingId}: ${(swingBytes / 1024).toFixed(1)} KB of JSON (${swing.headers.get('content-encoding') ?? 'identity'} on the wire)`);
+    // warm-up, not reported: each URL for a few seconds first, so the figures are of JIT-compiled code paths (a cold
+    // server answered the first route measured at about half its later rate)
+    const urls: [string, Record<string, string>][] = [
+      [`${base}/_next/static/chunks/${chunk}`, {}],
+      [`${base}/api/health`, {}],
+      [`${base}/api/me`, { cookie }],
+      [`${base}/api/recordings/${recordingId}`, { cookie }],
+      [`${base}/api/swings/${swingId}`, { cookie, 'accept-encoding': 'gzip' }],
+    ];
+    for (const [url, headers] of urls) await autocannon(url, headers, WARM_UP_SECONDS);
     const staticLoad = await autocannon(`${base}/_next/static/chunks/${chunk}`, {});
     const health = await autocannon(`${base}/api/health`, {});
     const me = await autocannon(`${base}/api/me`, { cookie });

@@ -52,7 +52,7 @@ export interface JobFiles {
  */
 async function openRaw(store: RawFileStore, recordingId: number, row: { storage_key: string; byte_size: unknown }, files: JobFiles): Promise<Readable> {
   if (files.localCopyDir) {
-    const path = join(files.localCopyDir, localCopyName(recordingId));
+    const path = join(/*turbopackIgnore: true*/ files.localCopyDir, localCopyName(recordingId));
     const size = await stat(path).then((s) => s.size, () => -1);
     if (size === Number(row.byte_size)) return createReadStream(path, { highWaterMark: 1 << 20 });
   }
@@ -72,7 +72,7 @@ export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: 
 export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string, files: JobFiles = {}): Promise<Verdict> {
   const outcome = await analyzeStored(db, store, job.recordingId, files);
   // the kept copy has served: later processing (a reprocess) reads the store
-  if (files.localCopyDir) await rm(join(files.localCopyDir, localCopyName(job.recordingId)), { force: true });
+  if (files.localCopyDir) await rm(join(/*turbopackIgnore: true*/ files.localCopyDir, localCopyName(job.recordingId)), { force: true });
   return db.transaction(async (trx) => {
     if (!(await stillOwned(trx, job.id, workerId))) return { kind: 'lost' as const };
     await trx('recordings').where({ id: job.recordingId }).forUpdate().first('id');

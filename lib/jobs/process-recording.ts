@@ -26,9 +26,9 @@ export type InputProblem = { message: string; line: number | null; column: numbe
 export type AnalysisOutcome = { prepared: PreparedAnalysis } | { problem: InputProblem };
 
 /** The analysis of a readable source, prepared for storing; or the input problem that stopped it. */
-export async function analyzeSource(source: Readable, options: RecordingOptions, promote: readonly number[]): Promise<AnalysisOutcome> {
+export async function analyzeSource(source: Readable, options: RecordingOptions, promote: readonly number[], byteSize?: number): Promise<AnalysisOutcome> {
   try {
-    const raw = await readStoredRecording(source, profileOf(options));
+    const raw = await readStoredRecording(source, profileOf(options), byteSize);
     const layout = resolveLayout(options, raw.metadata);
     return { prepared: prepareResults(analyzeRecording(raw, layout, analyzeOptionsOf(options, promote))) };
   } catch (error) {
@@ -66,7 +66,7 @@ export async function analyzeStored(db: Knex, store: RawFileStore, recordingId: 
   const options = recordingOptionsSchema.parse(jsonColumn(row.options));
   // a coach's promoted candidates are detected again on every analysis (lib/recordings/promote.ts)
   const promote: number[] = (await db('candidate_promotions').where({ recording_id: recordingId }).orderBy('id').pluck('time_s')).map(Number);
-  return analyzeSource(await openRaw(store, recordingId, row, files), options, promote);
+  return analyzeSource(await openRaw(store, recordingId, row, files), options, promote, Number(row.byte_size) || undefined);
 }
 
 export async function processClaimedJob(db: Knex, store: RawFileStore, job: ClaimedJob, workerId: string, files: JobFiles = {}): Promise<Verdict> {

@@ -15,8 +15,9 @@ function position(text: string, index: number, linesBefore: number): [number, nu
   return [linesBefore + newlines + 1, column];
 }
 
-export async function readStoredRecording(source: Readable, profile?: ImportProfile): Promise<RawRecording> {
-  const reader = createRecordingReader({ profile });
+/** `byteSize`, the stored file's size when known, sizes the reader's arrays once (a hint: it changes no result). */
+export async function readStoredRecording(source: Readable, profile?: ImportProfile, byteSize?: number): Promise<RawRecording> {
+  const reader = createRecordingReader({ profile, bytes: byteSize });
   const decoder = new TextDecoder('utf-8', { fatal: true });
   let linesBefore = 0;
   const take = (text: string) => {

@@ -139,8 +139,15 @@ describe('properties of derive', () => {
       fc.property(loadedChannels, fc.double({ min: 0.5, max: 100, noNaN: true }), (f, s) => {
         const a = derive(recording(f), layout, { handedness: 'right', stanceWidthMm: 400 });
         const b = derive(recording(f.map((c) => c.map((v) => v * s))), layout, { handedness: 'right', stanceWidthMm: 400 });
+        // Compared where both are defined. Where a divisor is "no load" (below max(5 N, 1 % of the median total),
+        // lib/signal/derive.ts) the value is NaN, and the 5 N floor does not scale with the forces: a filtered heel
+        // total that undershoots near it after a step (as fast-check found, seed 1689595631) is NaN at one scale and
+        // defined at the other. The invariance is a claim about the defined values.
         for (const key of ['leadPct', 'leadHeelPct', 'trailToePct', 'copX', 'copY', 'leftCopX', 'rightCopY'] as const) {
-          a[key].forEach((v, i) => expect(Math.abs(v - b[key][i])).toBeLessThan(1e-7 * (1 + Math.abs(v))));
+          a[key].forEach((v, i) => {
+            const w = b[key][i];
+            if (Number.isFinite(v) && Number.isFinite(w)) expect(Math.abs(v - w)).toBeLessThan(1e-7 * (1 + Math.abs(v)));
+          });
         }
       }),
       { numRuns: 40 },

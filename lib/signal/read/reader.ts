@@ -119,9 +119,10 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
   };
 
   /**
-   * Rows written by fastLineBytes straight into the arrays sized from the `lines` hint (no call per value: a double
-   * handed to a method is boxed, and 16 of them per line kept the young generation busy). Every other way of adding
-   * a row first hands the count back to the Growables (endDirect) and then pushes as usual.
+   * Rows written by the fast scanners (takeCells) straight into the arrays sized from the `lines` or `bytes` hint
+   * (no call per value: a double handed to a method is boxed, and 16 of them per line kept the young generation
+   * busy). Every other way of adding a row first hands the count back to the Growables (endDirect) and then pushes
+   * as usual.
    */
   let direct: {
     row: number;
@@ -286,6 +287,42 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
     }
   };
 
+  /**
+   * The checks and effects of a line the fast scanners (fastLine, fastLineBytes) read into cells[0..k): the same as
+   * dataRow's for that line. The row goes straight into the arrays sized from a hint while they have room (see
+   * `direct`), else to the Growables. False leaves the line to the slow path, with nothing changed.
+   */
+  const takeCells = (p: ColumnPlan, k: number): boolean => {
+    if (k !== p.fieldCount) return false;
+    const ts = cells[p.time] * p.timeScale;
+    if (!(ts > prevTime)) return false;
+    const sensors = p.sensors;
+    for (let c = 0; c < sensors.length; c++) if (cells[sensors[c]] < -MAX_NEGATIVE_READING) return false;
+    if (impact) {
+      const v = cells[p.impact];
+      if (v !== 0 && v !== 1) return false;
+    }
+    line++;
+    lastContentLine = line;
+    prevTime = ts;
+    const d = direct;
+    if (d !== null && d.row < d.limit) {
+      const r = d.row++;
+      const out = d.channels;
+      for (let c = 0; c < sensors.length; c++) out[c][r] = cells[sensors[c]];
+      if (d.impact) d.impact[r] = cells[p.impact] === 1 ? 1 : 0;
+      d.time[r] = ts;
+      d.lines[r] = line;
+      return true;
+    }
+    endDirect();
+    for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
+    if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
+    time!.push(ts);
+    lines!.push(line);
+    return true;
+  };
+
   /** Reads one line [from, end) when it is a common one (see scanPiece); false leaves it to the papaparse path. */
   const fastLine = (text: string, from: number, end: number, p: ColumnPlan): boolean => {
     const want = p.fieldCount;
@@ -326,25 +363,7 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
       i++; // past the delimiter
       if (i >= end) return false; // an empty last cell
     }
-    if (k !== want) return false;
-    const ts = cells[p.time] * p.timeScale;
-    if (!(ts > prevTime)) return false;
-    const sensors = p.sensors;
-    for (let c = 0; c < sensors.length; c++) if (cells[sensors[c]] < -MAX_NEGATIVE_READING) return false;
-    if (impact) {
-      const v = cells[p.impact];
-      if (v !== 0 && v !== 1) return false;
-    }
-    // accepted: the same effects as dataRow for this line
-    endDirect();
-    line++;
-    lastContentLine = line;
-    prevTime = ts;
-    for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
-    if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
-    time!.push(ts);
-    lines!.push(line);
-    return true;
+    return takeCells(p, k);
   };
 
   /**
@@ -390,34 +409,7 @@ export function createRecordingReader(opts: RecordingReaderOptions = {}): Record
       i++;
       if (i >= end) return false;
     }
-    if (k !== want) return false;
-    const ts = cells[p.time] * p.timeScale;
-    if (!(ts > prevTime)) return false;
-    const sensors = p.sensors;
-    for (let c = 0; c < sensors.length; c++) if (cells[sensors[c]] < -MAX_NEGATIVE_READING) return false;
-    if (impact) {
-      const v = cells[p.impact];
-      if (v !== 0 && v !== 1) return false;
-    }
-    line++;
-    lastContentLine = line;
-    prevTime = ts;
-    const d = direct;
-    if (d !== null && d.row < d.limit) {
-      const r = d.row++;
-      const out = d.channels;
-      for (let c = 0; c < sensors.length; c++) out[c][r] = cells[sensors[c]];
-      if (d.impact) d.impact[r] = cells[p.impact] === 1 ? 1 : 0;
-      d.time[r] = ts;
-      d.lines[r] = line;
-      return true;
-    }
-    endDirect();
-    for (let c = 0; c < sensors.length; c++) channels[c].push(cells[sensors[c]]);
-    if (impact) impact.push(cells[p.impact] === 1 ? 1 : 0);
-    time!.push(ts);
-    lines!.push(line);
-    return true;
+    return takeCells(p, k);
   };
 
   /**

@@ -1,10 +1,11 @@
 import 'server-only';
 import { cookies } from 'next/headers';
-import { decode, type JWT } from 'next-auth/jwt';
+import type { JWT } from 'next-auth/jwt';
 import { cookieSettings } from '@/lib/auth/cookies';
+import { decodeSessionToken } from '@/lib/auth/token-memo';
 
-// Reads the signed-in user's next-auth session JWT straight from the request's cookie: one decryption
-// (next-auth's own `decode`: HKDF key, JWE A256GCM, exp checked with its 15 s tolerance). getServerSession does the
+// Reads the signed-in user's next-auth session JWT straight from the request's cookie: next-auth's own `decode` (HKDF
+// key, JWE A256GCM, exp checked with its 15 s tolerance), remembered per token text (lib/auth/token-memo.ts). getServerSession does the
 // same decode inside next-auth's whole session handler, and then encrypts a refreshed token that a route handler
 // or server component throws away. Who the user is now (active, role, academy) is still read from the database on
 // every request by getViewer (lib/auth/roles.ts).
@@ -25,9 +26,5 @@ async function sessionCookie(name: string): Promise<string | null> {
 export async function readSessionToken(secret: string): Promise<JWT | null> {
   const token = await sessionCookie(cookieSettings().sessionTokenName);
   if (!token) return null;
-  try {
-    return await decode({ token, secret });
-  } catch {
-    return null;
-  }
+  return decodeSessionToken(token, secret);
 }

@@ -1,5 +1,6 @@
 import 'server-only';
 import { db } from '@/lib/db/client';
+import { compileOnce } from '@/lib/db/compiled';
 import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
 import type { Role, UpdateUserInput } from '@/lib/contracts/users';
 import type { AcademyUser } from '@/lib/contracts/users';
@@ -108,9 +109,12 @@ export async function updateAcademyUser(
   return getAcademyUser(admin.academyId, userId);
 }
 
+// on every authenticated request's path: compiled once (lib/db/compiled.ts)
+const ACTIVE_USER = compileOnce(1, (conn, userId: number) => conn('users').select('role', 'academy_id', 'active', 'session_version').where({ id: userId }).limit(1));
+
 /** Active flag, current role and session version, re-read on each request so a deactivated account loses access at once. */
 export async function findActiveUser(userId: number): Promise<{ role: Role; academyId: number; sessionVersion: number } | null> {
-  const row: UserRow | undefined = await db('users').select('role', 'academy_id', 'active', 'session_version').where({ id: userId }).first();
+  const row = (await ACTIVE_USER.rows(db, userId))[0] as UserRow | undefined;
   if (!row || !row.active) return null;
   return { role: row.role, academyId: Number(row.academy_id), sessionVersion: Number(row.session_version ?? 0) };
 }

@@ -1,16 +1,17 @@
 import 'server-only';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
-import { jsonColumn, r0, r1, r2, r3, toIsoDate } from '@/lib/db/values';
+import { compileOnce } from '@/lib/db/compiled';
+import { jsonColumn, r1, r2, r3, toIsoDate } from '@/lib/db/values';
 import { ForbiddenError, NotFoundError } from '@/lib/http';
 import { accessFromRow } from '@/lib/auth/access';
-import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
+import type { SwingDetail, SwingView } from '@/lib/contracts/swings';
 import { listAnnotations } from '@/lib/swings/annotations';
 import { labelsOf } from '@/lib/swings/labels';
 import { correctionsView } from '@/lib/swings/viewer-data';
 import type { Knex } from 'knex';
 import { payloadBytesOf } from '@/lib/swings/payload';
-import { swingBodyBytes } from '@/lib/swings/payload-view';
+import { eventsPhasesView, swingBodyBytes, type EventRow, type PhaseRow, type ValueRow } from '@/lib/swings/payload-view';
 import type { SwingPayload } from '@/lib/swings/payload-build';
 
 // One swing with its phase table and the values at its events, for the swing page and GET /api/swings/:id; with
@@ -54,33 +55,31 @@ const DETAIL_COLUMNS = [
   'ca.athlete_id as coach_link',
 ];
 
-/**
- * The swing's row with what the access rule needs, in one query; with `view`, also its labels, the two stored
- * payload texts (as bytes: they go out as they are) and its neighbours in the recording. 404 (the same answer as an
- * unknown id) for a swing the viewer may not see, or of a deleted session or recording until it is restored.
- */
-async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise<{ row: Row; access: 'coach' | 'student' }> {
-  const q = db('swings as s')
+/** The swing view's query (swingRow), its SQL text compiled once per shape (lib/db/compiled.ts). */
+function swingQuery(conn: Knex, view: boolean, viewerId: number, swingId: number): Knex.QueryBuilder {
+  const q = conn('swings as s')
     .join('recordings as r', 'r.id', 's.recording_id')
     .join('practice_sessions as p', 'p.id', 'r.session_id')
     .join('athletes as a', 'a.id', 'r.athlete_id')
-    .leftJoin('coach_athletes as ca', (j) => j.on('ca.athlete_id', 'a.id').andOnVal('ca.coach_user_id', viewer.id))
+    .leftJoin('coach_athletes as ca', (j) => j.on('ca.athlete_id', 'a.id').andOnVal('ca.coach_user_id', viewerId))
     .where('s.id', swingId)
     .whereNull('r.binned_at')
     .whereNull('p.binned_at');
-  // the swing's events, values at events and phase rows as JSON arrays in the same row (one round trip, not four)
-  const columns: (string | Knex.Raw)[] = [
-    ...DETAIL_COLUMNS,
-    db.raw(
+  // the swing's events, values at events and phase rows as JSON arrays in the same row (one round trip, not four);
+  // the view reads them from the swing's stored part instead (lib/swings/payload-build.ts), made with the same
+  // formatter whenever they change
+  const columns: (string | Knex.Raw)[] = [...DETAIL_COLUMNS];
+  if (!view) columns.push(
+    conn.raw(
       "(SELECT JSON_ARRAYAGG(JSON_OBJECT('name', e.name, 'time_s', e.time_s, 'source', e.source, 'auto_time_s', e.auto_time_s, 'misfit', e.misfit)) FROM swing_events e WHERE e.swing_id = s.id) AS events_json",
     ),
-    db.raw(
+    conn.raw(
       "(SELECT JSON_ARRAYAGG(JSON_OBJECT('event', v.event, 'lead_pct', v.lead_pct, 'lead_heel_pct', v.lead_heel_pct, 'trail_heel_pct', v.trail_heel_pct, 'cop_x_mm', v.cop_x_mm, 'cop_y_mm', v.cop_y_mm)) FROM swing_event_values v WHERE v.swing_id = s.id) AS values_json",
     ),
-    db.raw(
+    conn.raw(
       "(SELECT JSON_ARRAYAGG(JSON_OBJECT('phase', m.phase, 'duration_s', m.duration_s, 'cop_path_mm', m.cop_path_mm, 'peak_cop_speed_mm_s', m.peak_cop_speed_mm_s, 'mean_lead_pct', m.mean_lead_pct)) FROM swing_phase_metrics m WHERE m.swing_id = s.id) AS phases_json",
     ),
-  ];
+  );
   if (view) {
     q.leftJoin('swing_labels as l', 'l.swing_id', 's.id')
       .leftJoin('swing_payloads as sp', 'sp.swing_id', 's.id')
@@ -92,16 +91,29 @@ async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise
       'l.flight',
       'l.tags',
       'l.rating',
-      db.raw('CAST(sp.body AS BINARY) AS swing_part'),
-      db.raw('CAST(rp.body AS BINARY) AS shared_part'),
-      db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index < s.swing_index ORDER BY x.swing_index DESC LIMIT 1) AS previous_id'),
-      db.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index > s.swing_index ORDER BY x.swing_index ASC LIMIT 1) AS next_id'),
+      conn.raw('CAST(sp.body AS BINARY) AS swing_part'),
+      'sp.format as swing_part_format',
+      conn.raw('CAST(rp.body AS BINARY) AS shared_part'),
+      conn.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index < s.swing_index ORDER BY x.swing_index DESC LIMIT 1) AS previous_id'),
+      conn.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index > s.swing_index ORDER BY x.swing_index ASC LIMIT 1) AS next_id'),
       // whether the notes and the correction log need a query of their own (most swings have neither)
-      db.raw('EXISTS (SELECT 1 FROM swing_annotations n WHERE n.swing_id = s.id) AS has_notes'),
-      db.raw('EXISTS (SELECT 1 FROM swing_event_corrections c WHERE c.swing_id = s.id) AS has_corrections'),
+      conn.raw('EXISTS (SELECT 1 FROM swing_annotations n WHERE n.swing_id = s.id) AS has_notes'),
+      conn.raw('EXISTS (SELECT 1 FROM swing_event_corrections c WHERE c.swing_id = s.id) AS has_corrections'),
     );
   }
-  const row: Row | undefined = await q.first(columns);
+  return q.first(columns) as unknown as Knex.QueryBuilder;
+}
+
+const SWING_ROW = compileOnce(2, (conn, viewerId: number, swingId: number) => swingQuery(conn, false, viewerId, swingId));
+const SWING_VIEW_ROW = compileOnce(2, (conn, viewerId: number, swingId: number) => swingQuery(conn, true, viewerId, swingId));
+
+/**
+ * The swing's row with what the access rule needs, in one query; with `view`, also its labels, the two stored
+ * payload texts (as bytes: they go out as they are) and its neighbours in the recording. 404 (the same answer as an
+ * unknown id) for a swing the viewer may not see, or of a deleted session or recording until it is restored.
+ */
+async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise<{ row: Row; access: 'coach' | 'student' }> {
+  const row: Row | undefined = (await (view ? SWING_VIEW_ROW : SWING_ROW).rows(db, viewer.id, swingId))[0];
   const access = row ? accessFromRow(viewer, row as { academy_id: unknown; user_id: unknown; coach_link: unknown }) : null;
   if (!row || !access) throw new NotFoundError('No swing with this id.');
   return { row, access };
@@ -116,9 +128,9 @@ async function swingRow(viewer: Viewer, swingId: number, view: boolean): Promise
 async function swingViewParts(viewer: Viewer, swingId: number): Promise<{ reader: ReaderPart; payload: { shared: Buffer; swing: Buffer } }> {
   const { row, access } = await swingRow(viewer, swingId, true);
   const isCoach = access === 'coach';
-  const detail = detailOf(row);
+  const detail = baseOf(row);
   const [payload, annotations, corrections] = await Promise.all([
-    payloadBytesOf(swingId, Number(row.recording_id), row.shared_part as Buffer | null, row.swing_part as Buffer | null),
+    payloadBytesOf(swingId, Number(row.recording_id), row.shared_part as Buffer | null, row.swing_part as Buffer | null, row.swing_part_format === null ? null : Number(row.swing_part_format)),
     Number(row.has_notes) ? listAnnotations(swingId, !isCoach) : Promise.resolve([]),
     isCoach && Number(row.has_corrections) ? correctionsView(swingId) : Promise.resolve([]),
   ]);
@@ -156,15 +168,8 @@ function jsonRows<T>(value: unknown): T[] {
   return jsonColumn<T[]>(value) ?? [];
 }
 
-type EventJson = { name: string; time_s: number; source: 'auto' | 'manual'; auto_time_s: number | null; misfit: number | boolean };
-type ValueJson = { event: string; lead_pct: number | null; lead_heel_pct: number | null; trail_heel_pct: number | null; cop_x_mm: number | null; cop_y_mm: number | null };
-type PhaseJson = { phase: string; duration_s: number | null; cop_path_mm: number | null; peak_cop_speed_mm_s: number | null; mean_lead_pct: number | null };
-
-function detailOf(row: Row): SwingDetail {
-  const events = jsonRows<EventJson>(row.events_json);
-  const values = jsonRows<ValueJson>(row.values_json);
-  const phases = jsonRows<PhaseJson>(row.phases_json);
-
+/** The swing's own numbers and where it belongs, without its events and phases (the view has those stored). */
+function baseOf(row: Row): Omit<SwingDetail, 'events' | 'phases'> {
   return {
     id: Number(row.id),
     index: Number(row.swing_index),
@@ -185,37 +190,11 @@ function detailOf(row: Row): SwingDetail {
     },
     session: { id: Number(row.session_id), sessionDate: toIsoDate(row.session_date) ?? '', context: row.context as SwingDetail['session']['context'] },
     athlete: { id: Number(row.athlete_id), displayName: row.display_name as string, dateOfBirth: toIsoDate(row.date_of_birth) },
-    // In event order, not row order.
-    events: eventNames
-      .flatMap((name) => {
-        const e = events.find((x) => x.name === name);
-        return e ? [{ name, e, v: values.find((x) => x.event === name) }] : [];
-      })
-      .map(({ name, e, v }) => ({
-        name,
-        timeS: r3(e.time_s) ?? 0,
-        source: e.source,
-        autoTimeS: r3(e.auto_time_s),
-        misfit: Boolean(e.misfit),
-        leadPct: r1(v?.lead_pct),
-        leadHeelPct: r1(v?.lead_heel_pct),
-        trailHeelPct: r1(v?.trail_heel_pct),
-        copXMm: r1(v?.cop_x_mm),
-        copYMm: r1(v?.cop_y_mm),
-      })),
-    phases: phaseNames
-      .flatMap((name) => {
-        const p = phases.find((x) => x.phase === name);
-        return p ? [{ name, p }] : [];
-      })
-      .map(({ name, p }) => ({
-        name,
-        durationS: r3(p.duration_s),
-        copPathMm: r1(p.cop_path_mm),
-        peakCopSpeedMmS: r0(p.peak_cop_speed_mm_s),
-        meanLeadPct: r1(p.mean_lead_pct),
-      })),
   };
+}
+
+function detailOf(row: Row): SwingDetail {
+  return { ...baseOf(row), ...eventsPhasesView(jsonRows<EventRow>(row.events_json), jsonRows<ValueRow>(row.values_json), jsonRows<PhaseRow>(row.phases_json)) };
 }
 
 /** The GET /api/swings/:id `swing` body for server components (the same function the route uses). */

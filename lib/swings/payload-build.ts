@@ -1,8 +1,8 @@
 // The viewer's heavy part of GET /api/swings/:id, the same for every reader of a swing, kept as JSON text: the
 // recording's part, shared by all its swings (recording_payloads.body: the sensor layout with handedness and stance
 // width; recording_payloads.overview: GET /api/recordings/:id/overview, the whole recording with the candidates the
-// finder passed over), and the swing's own part (swing_payloads: the columnar full-rate traces and the per-sensor
-// forces at the current events). Built when the
+// finder passed over), and the swing's own part (swing_payloads: the columnar full-rate traces, the per-sensor
+// forces at the current events, and the events with the values at them and the phase table). Built when the
 // recording is processed (lib/jobs/write-results.ts, with the swing parts made in the job thread) and, for the
 // swing's part, after each event correction (lib/swings/corrections.ts); spliced into the response as is
 // (lib/swings/payload.ts). Free of the app's DB client and of server-only (every function takes the connection),
@@ -16,11 +16,18 @@ import { insertInBatches } from '@/lib/db/batch';
 import { overviewOf, type DisplaySeries } from '@/lib/jobs/display-series';
 import { coarsenDisplay } from './coarsen-display';
 import { parseStoredSeries, type StoredSwingSeries } from './stored-series';
-import { sensorFramesView, seriesView, swingPartText, type EventTimes } from './payload-view';
+import { eventsPhasesView, sensorFramesView, seriesView, swingPartText, type EventRow, type EventTimes, type PhaseRow, type ValueRow } from './payload-view';
 
 export { seriesView, sensorFramesView } from './payload-view';
 
-export type SwingPayload = Pick<SwingView, 'series' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames'>;
+/**
+ * The form of the swing part this code writes (swing_payloads.format). Raise it whenever the part's content changes:
+ * rows of another form are rebuilt on their next read (lib/swings/payload.ts payloadBytesOf).
+ * 1: series and sensorFrames; 2: also events and phases.
+ */
+export const SWING_PART_FORMAT = 2;
+
+export type SwingPayload = Pick<SwingView, 'series' | 'layout' | 'handedness' | 'stanceWidthMm' | 'sensorFrames' | 'events' | 'phases'>;
 
 const r3 = (v: unknown) => Math.round(Number(v) * 1000) / 1000 || 0;
 const r1 = (v: number | null) => (v === null ? null : Math.round(v * 10) / 10 || 0);
@@ -67,6 +74,24 @@ async function layoutView(conn: Knex, recordingId: number): Promise<Pick<SwingVi
   };
 }
 
+/** The swings' events with the values at them and their phase tables, as the API sends them (eventsPhasesView). */
+async function currentEventsPhases(conn: Knex, swingIds: number[]): Promise<Map<number, ReturnType<typeof eventsPhasesView>>> {
+  const [events, values, phases] = swingIds.length
+    ? await Promise.all([
+        conn('swing_events').whereIn('swing_id', swingIds).select('swing_id', 'name', 'time_s', 'source', 'auto_time_s', 'misfit'),
+        conn('swing_event_values').whereIn('swing_id', swingIds).select('swing_id', 'event', 'lead_pct', 'lead_heel_pct', 'trail_heel_pct', 'cop_x_mm', 'cop_y_mm'),
+        conn('swing_phase_metrics').whereIn('swing_id', swingIds).select('swing_id', 'phase', 'duration_s', 'cop_path_mm', 'peak_cop_speed_mm_s', 'mean_lead_pct'),
+      ])
+    : [[], [], []];
+  const bySwing = <T extends { swing_id: unknown }>(rows: T[]) => {
+    const out = new Map<number, T[]>(swingIds.map((id) => [id, []]));
+    for (const r of rows) out.get(Number(r.swing_id))?.push(r);
+    return out;
+  };
+  const [e, v, p] = [bySwing(events), bySwing(values), bySwing(phases)];
+  return new Map(swingIds.map((id) => [id, eventsPhasesView(e.get(id) as EventRow[], v.get(id) as ValueRow[], p.get(id) as PhaseRow[])]));
+}
+
 async function currentEvents(conn: Knex, swingIds: number[]): Promise<Map<number, EventTimes>> {
   const rows = swingIds.length ? await conn('swing_events').whereIn('swing_id', swingIds).select('swing_id', 'name', 'time_s') : [];
   const out = new Map<number, EventTimes>();
@@ -109,22 +134,29 @@ export async function storeRecordingPayloads(
   await storeRecordingPart(conn, recordingId);
   const swingIds = (await conn('swings').where({ recording_id: recordingId }).select('id')).map((r) => Number(r.id));
   if (swingIds.length === 0) return;
-  const events = await currentEvents(conn, swingIds.filter((id) => !prepared?.has(id)));
+  const [events, detail] = await Promise.all([currentEvents(conn, swingIds.filter((id) => !prepared?.has(id))), currentEventsPhases(conn, swingIds)]);
   const rows = [];
   for (const id of swingIds) {
     const parts = prepared?.get(id) ?? swingPartTexts(await storedSeriesOf(conn, id), events.get(id)!);
-    rows.push({ swing_id: id, body: swingPartText(parts.seriesJson, parts.framesJson) });
+    rows.push({ swing_id: id, body: swingPartText(parts.seriesJson, parts.framesJson, detail.get(id)!), format: SWING_PART_FORMAT });
   }
   await conn('swing_payloads').whereIn('swing_id', swingIds).delete();
   await insertInBatches(conn, 'swing_payloads', rows);
 }
 
-/** (Re)builds one swing's own part (after its events moved, or for a swing processed before payloads were stored). */
+/**
+ * (Re)builds one swing's own part (after its events moved, or for a swing processed before payloads were stored).
+ * Everything that changes a swing's events, values or phases calls this or storeRecordingPayloads in the same
+ * transaction (lib/swings/corrections.ts, lib/jobs/write-results.ts): the view reads them from here.
+ */
 export async function storeSwingPayload(conn: Knex, swingId: number): Promise<string> {
-  const [events, stored] = await Promise.all([currentEvents(conn, [swingId]), storedSeriesOf(conn, swingId)]);
+  const [events, detail, stored] = await Promise.all([currentEvents(conn, [swingId]), currentEventsPhases(conn, [swingId]), storedSeriesOf(conn, swingId)]);
   const parts = swingPartTexts(stored, events.get(swingId)!);
-  const body = swingPartText(parts.seriesJson, parts.framesJson);
-  await conn.raw('INSERT INTO swing_payloads (swing_id, body) VALUES (?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), built_at = CURRENT_TIMESTAMP(3)', [swingId, body]);
+  const body = swingPartText(parts.seriesJson, parts.framesJson, detail.get(swingId)!);
+  await conn.raw(
+    'INSERT INTO swing_payloads (swing_id, body, format) VALUES (?, ?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), format = VALUES(format), built_at = CURRENT_TIMESTAMP(3)',
+    [swingId, body, SWING_PART_FORMAT],
+  );
   return body;
 }
 

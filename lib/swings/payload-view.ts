@@ -2,7 +2,8 @@
 // the job thread (lib/jobs/prepare-results.ts) and the server build them with the same code; and the one place the
 // payload's JSON texts are put together.
 import type { EventName } from '@/lib/signal';
-import type { SwingView } from '@/lib/contracts/swings';
+import { eventNames, phaseNames, type SwingDetail, type SwingView } from '@/lib/contracts/swings';
+import { r0 as round0, r1 as round1, r3 as round3 } from '@/lib/db/values';
 import { nearestSample, type StoredSwingSeries } from './stored-series';
 
 export type EventTimes = { name: EventName; timeS: number }[];
@@ -39,9 +40,53 @@ export function sensorFramesView(stored: StoredSwingSeries | null, events: Event
   });
 }
 
-/** A swing's stored part (swing_payloads.body): exactly JSON.stringify of { series, sensorFrames }. */
-export function swingPartText(seriesJson: string, framesJson: string): string {
-  return `{"series":${seriesJson},"sensorFrames":${framesJson}}`;
+/** A swing's stored part (swing_payloads.body): exactly JSON.stringify of { series, sensorFrames, events, phases }. */
+export function swingPartText(seriesJson: string, framesJson: string, eventsPhases: { events: SwingDetail['events']; phases: SwingDetail['phases'] }): string {
+  return `{"series":${seriesJson},"sensorFrames":${framesJson},"events":${JSON.stringify(eventsPhases.events)},"phases":${JSON.stringify(eventsPhases.phases)}}`;
+}
+
+/** A swing's swing_events, swing_event_values and swing_phase_metrics rows, as read (numbers may be strings). */
+export type EventRow = { name: string; time_s: unknown; source: 'auto' | 'manual'; auto_time_s: unknown; misfit: unknown };
+export type ValueRow = { event: string; lead_pct: unknown; lead_heel_pct: unknown; trail_heel_pct: unknown; cop_x_mm: unknown; cop_y_mm: unknown };
+export type PhaseRow = { phase: string; duration_s: unknown; cop_path_mm: unknown; peak_cop_speed_mm_s: unknown; mean_lead_pct: unknown };
+
+/**
+ * The swing's events with the values at them, and its phase table, as the API sends them: in event and phase order
+ * (not row order), rounded the way `npm run analyze` prints them (times to 3 decimals, shares and millimetres to 1,
+ * mm/s to whole numbers). The one formatter of both the stored swing part and the swing page's tables.
+ */
+export function eventsPhasesView(events: EventRow[], values: ValueRow[], phases: PhaseRow[]): Pick<SwingDetail, 'events' | 'phases'> {
+  return {
+    events: eventNames
+      .flatMap((name) => {
+        const e = events.find((x) => x.name === name);
+        return e ? [{ name, e, v: values.find((x) => x.event === name) }] : [];
+      })
+      .map(({ name, e, v }) => ({
+        name,
+        timeS: round3(e.time_s) ?? 0,
+        source: e.source,
+        autoTimeS: round3(e.auto_time_s),
+        misfit: Boolean(Number(e.misfit)),
+        leadPct: round1(v?.lead_pct),
+        leadHeelPct: round1(v?.lead_heel_pct),
+        trailHeelPct: round1(v?.trail_heel_pct),
+        copXMm: round1(v?.cop_x_mm),
+        copYMm: round1(v?.cop_y_mm),
+      })),
+    phases: phaseNames
+      .flatMap((name) => {
+        const p = phases.find((x) => x.phase === name);
+        return p ? [{ name, p }] : [];
+      })
+      .map(({ name, p }) => ({
+        name,
+        durationS: round3(p.duration_s),
+        copPathMm: round1(p.cop_path_mm),
+        peakCopSpeedMmS: round0(p.peak_cop_speed_mm_s),
+        meanLeadPct: round1(p.mean_lead_pct),
+      })),
+  };
 }
 
 /**

@@ -1,7 +1,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { db } from '@/lib/db/client';
-import { recordingOverviewText, recordingPartText, storeSwingPayload } from './payload-build';
+import { SWING_PART_FORMAT, recordingOverviewText, recordingPartText, storeSwingPayload } from './payload-build';
 
 // Serving the stored viewer payload (lib/swings/payload-build.ts builds it). The per-reader part (numbers, labels,
 // notes, audit, neighbours, canEdit) is read per request after the role and access checks, and the ETag is taken
@@ -9,12 +9,19 @@ import { recordingOverviewText, recordingPartText, storeSwingPayload } from './p
 
 /**
  * The stored payload parts of a swing as bytes, from the ones its view query read (`shared`, `swing`; null when
- * missing): a part missing (a swing processed before payloads were stored apart) is built and stored now.
+ * missing): a part missing (a swing processed before payloads were stored apart) or of an older form
+ * (`swingFormat`, SWING_PART_FORMAT) is built and stored now.
  */
-export async function payloadBytesOf(swingId: number, recordingId: number, shared: Buffer | null, swing: Buffer | null): Promise<{ shared: Buffer; swing: Buffer }> {
+export async function payloadBytesOf(
+  swingId: number,
+  recordingId: number,
+  shared: Buffer | null,
+  swing: Buffer | null,
+  swingFormat: number | null,
+): Promise<{ shared: Buffer; swing: Buffer }> {
   const [sharedBytes, swingBytes] = await Promise.all([
     shared ?? recordingPartText(db, recordingId).then((t) => Buffer.from(t, 'utf8')),
-    swing ?? storeSwingPayload(db, swingId).then((t) => Buffer.from(t, 'utf8')),
+    swing !== null && swingFormat === SWING_PART_FORMAT ? swing : storeSwingPayload(db, swingId).then((t) => Buffer.from(t, 'utf8')),
   ]);
   return { shared: sharedBytes, swing: swingBytes };
 }
@@ -41,7 +48,8 @@ export function matchesEtag(ifNoneMatch: string | null, etag: string): boolean {
  * Answers a JSON body the caller built for this reader after requireRole and the access check: a weak ETag of the
  * exact text, and 304 with no body when If-None-Match names it. `Cache-Control: private, no-cache` sends every reuse
  * back here (through the checks) first. Compression (gzip when the client accepts it) is Next's own (`compress`,
- * on by default for `next start`): compressing here as well would encode the body twice.
+ * on by default for `next start`), and only Next's: Next drops a route handler's own Content-Encoding header
+ * (next/dist/server/send-response.js), so a body gzipped here would reach the client as undecodable bytes.
  */
 export function sendCacheableJson(request: Request, body: string | Buffer): Response {
   const etag = etagOf(body);

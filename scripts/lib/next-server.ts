@@ -78,7 +78,9 @@ export async function startNextServer(
 ): Promise<NextServer> {
   const url = `http://127.0.0.1:${port}`;
   await buildBundles(); // when .build/ was removed or is older than its sources while .next is current
-  const child = spawn(process.execPath, [NEXT_BIN, 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  // BENCH_NODE_FLAGS: extra node flags for the server (a profile of a benchmark: "--cpu-prof --cpu-prof-dir=/tmp/p")
+  const flags = (process.env.BENCH_NODE_FLAGS ?? '').split(' ').filter(Boolean);
+  const child = spawn(process.execPath, [...flags, NEXT_BIN, 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: { ...env, NODE_ENV: 'production' },
     stdio: ['ignore', 'inherit', 'inherit'],

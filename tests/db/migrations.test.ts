@@ -83,6 +83,8 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_users_drill_mail_opt_out', 'users', 'drill_mail_opt_out'],
   // the units a user reads shot values in
   ['add_users_shot_units', 'users', 'shot_units'],
+  // which form of the swing view's stored part a row holds (older forms are rebuilt on their next read)
+  ['add_swing_payloads_format', 'swing_payloads', 'format'],
 ];
 
 let scratch: ScratchDatabase;

@@ -345,6 +345,21 @@ describe('GET /api/swings/:id: stored payload, ETag, 304, gzip', () => {
     await stale.arrayBuffer();
   });
 
+  it('gzip (Next compress) only when Accept-Encoding allows it (RFC 9110 12.5.3: q=0 means "not acceptable"), the same JSON either way', async () => {
+    const as = (acceptEncoding: string) => sessions.get('coach')!.fetch(`/api/swings/${swingIds[1]}`, { headers: { 'accept-encoding': acceptEncoding } });
+    const plain = await as('identity');
+    expect(plain.headers.get('content-encoding')).toBeNull();
+    const plainText = await plain.text();
+    const refused = await as('gzip;q=0, identity');
+    expect(refused.headers.get('content-encoding')).toBeNull();
+    expect(await refused.text()).toBe(plainText);
+    const zipped = await as('br;q=0.5, gzip');
+    expect(zipped.headers.get('content-encoding')).toBe('gzip');
+    expect(zipped.headers.get('vary')).toMatch(/accept-encoding/i);
+    expect(await zipped.text()).toBe(plainText); // fetch unpacks it: gzip must carry exactly the identity bytes
+    expect(zipped.headers.get('etag')).toBe(plain.headers.get('etag')); // weak: one validator for both encodings
+  });
+
   it('a correction changes the ETag, and the new body carries the forces at the moved event', async () => {
     const before = await get('coach', swingIds[1]);
     const etag = before.headers.get('etag')!;

@@ -10,6 +10,11 @@ export class HttpError extends Error {
     super(message);
     this.name = 'HttpError';
   }
+
+  /** Headers the answer carries besides the JSON error body (Retry-After on a 429, say). */
+  responseHeaders(): Record<string, string> {
+    return {};
+  }
 }
 
 export class UnauthenticatedError extends HttpError {
@@ -89,7 +94,9 @@ export function toErrorResponse(error: unknown): Response {
     return json<ErrorBody>({ error: { code: error.code, message: error.message, line: error.line, column: error.column } }, error.status);
   }
   if (error instanceof HttpError) {
-    return json<ErrorBody>({ error: { code: error.code, message: error.message } }, error.status);
+    const response = json<ErrorBody>({ error: { code: error.code, message: error.message } }, error.status);
+    for (const [name, value] of Object.entries(error.responseHeaders())) response.headers.set(name, value);
+    return response;
   }
   console.error('[stanceline] unhandled error in route handler', error);
   return json<ErrorBody>({ error: { code: 'internal', message: 'Something went wrong on our side.' } }, 500);

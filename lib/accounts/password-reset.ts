@@ -25,6 +25,11 @@ export class TooManyRequestsError extends HttpError {
   constructor(readonly retryAfterS: number) {
     super(429, 'rate_limited', `Too many requests for a new password. Try again in ${Math.max(1, Math.ceil(retryAfterS / 60))} minutes.`);
   }
+
+  /** RFC 9110 section 10.2.3 (and RFC 6585 section 4): Retry-After in whole seconds. */
+  override responseHeaders(): Record<string, string> {
+    return { 'Retry-After': String(Math.max(1, Math.ceil(this.retryAfterS))) };
+  }
 }
 
 type Limiters = { email: RateLimiterMySQL; ip: RateLimiterMySQL };

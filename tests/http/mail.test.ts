@@ -62,8 +62,16 @@ describe('password reset over HTTP', () => {
     const visitor = new HttpSession(env.E2E_BASE_URL);
     const email = `limited-${run}@stanceline.test`;
     const statuses: number[] = [];
-    for (let i = 0; i < 4; i++) statuses.push((await visitor.json('/api/password-reset', post({ email }))).status);
+    for (let i = 0; i < 3; i++) statuses.push((await visitor.json('/api/password-reset', post({ email }))).status);
+    const limited = await visitor.fetch('/api/password-reset', post({ email }));
+    statuses.push(limited.status);
     expect(statuses).toEqual([202, 202, 202, 429]);
+    // RFC 9110 10.2.3: delay-seconds, here within the hour the limit counts
+    const retryAfter = limited.headers.get('retry-after');
+    expect(retryAfter).toMatch(/^\d+$/);
+    expect(Number(retryAfter)).toBeGreaterThan(0);
+    expect(Number(retryAfter)).toBeLessThanOrEqual(3600);
+    expect(((await limited.json()) as { error: { code: string } }).error.code).toBe('rate_limited');
   });
 
   it('the link works once, changes the password and ends the other sessions', async () => {

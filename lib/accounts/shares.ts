@@ -1,13 +1,15 @@
 // A coach sends the student a lesson summary or one swing by e-mail. The mail holds only a link to the page, which
 // needs sign-in; the student's home lists what was shared, newest first.
 import 'server-only';
-import { requireSession, requireSwing } from '@/lib/auth/access';
+import { requireAthlete, requireSession, requireSwing } from '@/lib/auth/access';
 import type { Viewer } from '@/lib/auth/viewer';
 import { db } from '@/lib/db/client';
 import { toIsoDate, toIsoTime } from '@/lib/db/values';
-import { ConflictError } from '@/lib/http';
+import { ConflictError, NotFoundError } from '@/lib/http';
+import { restorableUntil, withinBin } from '@/lib/sessions/store';
+import { BIN_DAYS, type BinnedRef } from '@/lib/contracts/sessions';
 import { appUrl, sendShareMail } from '@/lib/mail';
-import type { CreateShareInput, Share } from '@/lib/contracts/shares';
+import type { CreateShareInput, Share, ShareNotePatch } from '@/lib/contracts/shares';
 import { academyName } from './academy';
 
 type ShareRow = {
@@ -44,9 +46,11 @@ function toShare(row: ShareRow): Share {
   };
 }
 
-// Binned sessions, recordings and swings drop out of the list (the bin rule in DEVELOPERS.md).
-function shareQuery() {
+// Binned sessions, recordings and swings drop out of the list (the bin rule in DEVELOPERS.md), and so do binned shares
+// (a coach removed them) unless `binned` asks for those alone (the restore).
+function shareQuery(opts: { binned?: boolean } = {}) {
   return db('shares as sh')
+    .where((w) => (opts.binned ? w.whereNotNull('sh.binned_at') : w.whereNull('sh.binned_at')))
     .leftJoin('practice_sessions as p', 'p.id', 'sh.session_id')
     .leftJoin('swings as s', 's.id', 'sh.swing_id')
     .leftJoin('recordings as r', 'r.id', 's.recording_id')
@@ -97,4 +101,65 @@ export async function shareWithStudent(viewer: Viewer, input: CreateShareInput, 
 /** A student's shares, newest first. */
 export async function listSharesForStudent(viewer: Viewer): Promise<Share[]> {
   return (await shareQuery().where('sh.recipient_user_id', viewer.id)).map(toShare);
+}
+
+/** What a coach sent one of their players, newest first (binned shares left out). */
+export async function listSharesForAthlete(viewer: Viewer, athleteId: number): Promise<Share[]> {
+  await requireAthlete(viewer, athleteId, 'write');
+  return (await shareQuery().where('sh.athlete_id', athleteId)).map(toShare);
+}
+
+/**
+ * A share the viewer may change: the coach who may write for its lesson or swing (requireSession / requireSwing with
+ * 'write'). Anyone else, an unknown id, and a share whose lesson or swing is in the bin get the same 404. `binned`
+ * reaches shares in the bin only (the restore route).
+ */
+async function requireShareToWrite(viewer: Viewer, id: number, opts: { binned?: boolean } = {}): Promise<void> {
+  const row = await db('shares').where({ id }).first('session_id', 'swing_id', 'binned_at');
+  const visible = row && (opts.binned ? row.binned_at !== null : row.binned_at === null);
+  if (!visible) throw new NotFoundError(opts.binned ? 'No share with this id in the bin.' : 'No share with this id.');
+  try {
+    if (row.swing_id !== null) await requireSwing(viewer, Number(row.swing_id), 'write');
+    else await requireSession(viewer, Number(row.session_id), 'write');
+  } catch (error) {
+    // the lesson's or swing's own 404 would name it; the answer is about the share
+    if (error instanceof NotFoundError) throw new NotFoundError('No share with this id.');
+    throw error;
+  }
+}
+
+async function readShare(id: number): Promise<Share> {
+  const row = await shareQuery().where('sh.id', id).first();
+  if (!row) throw new NotFoundError('No share with this id.');
+  return toShare(row);
+}
+
+/** The note changes (an empty note clears it); the student is not mailed again. */
+export async function updateShareNote(viewer: Viewer, id: number, patch: ShareNotePatch): Promise<Share> {
+  await requireShareToWrite(viewer, id);
+  await db('shares').where({ id }).whereNull('binned_at').update({ note: patch.note ? patch.note : null });
+  return readShare(id);
+}
+
+function binnedName(share: Share): string {
+  return share.kind === 'swing' ? `Swing of ${share.sessionDate}` : `Lesson summary of ${share.sessionDate}`;
+}
+
+/** To the bin: the student's list leaves it out; restorable for BIN_DAYS days, the sweep removes it after that. */
+export async function deleteShare(viewer: Viewer, id: number): Promise<BinnedRef> {
+  await requireShareToWrite(viewer, id);
+  const share = await readShare(id);
+  await db('shares').where({ id }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+  const row = await db('shares').where({ id }).first('binned_at');
+  return { id, name: binnedName(share), binnedAt: toIsoTime(row?.binned_at ?? null), restorableUntil: restorableUntil(row?.binned_at ?? null) };
+}
+
+/** Out of the bin within BIN_DAYS days (409 after that). */
+export async function restoreShare(viewer: Viewer, id: number, now = new Date()): Promise<Share> {
+  await requireShareToWrite(viewer, id, { binned: true });
+  const row = await db('shares').where({ id }).first('binned_at');
+  if (!row || !row.binned_at) throw new NotFoundError('No share with this id in the bin.');
+  if (!withinBin(row.binned_at, now)) throw new ConflictError(`This share was removed more than ${BIN_DAYS} days ago and can no longer be restored.`);
+  await db('shares').where({ id }).update({ binned_at: null });
+  return readShare(id);
 }

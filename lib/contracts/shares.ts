@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { binnedRefSchema } from '@/lib/contracts/sessions';
 
 // A coach sends a student a lesson summary (sessionId) or one swing (swingId): exactly one of the two.
 export const createShareSchema = z
@@ -10,6 +11,14 @@ export const createShareSchema = z
   .refine((v) => (v.sessionId === undefined) !== (v.swingId === undefined), { error: 'Send a sessionId or a swingId (one of them).' });
 
 export type CreateShareInput = z.infer<typeof createShareSchema>;
+
+// PATCH /api/shares/:id: the note only (trimmed; an empty note clears it). DELETE answers { share: binnedRefSchema }
+// (lib/contracts/sessions.ts), POST /api/shares/:id/restore and PATCH answer { share }, GET
+// /api/athletes/:id/shares answers { shares } (newest first, binned ones left out).
+export const shareNotePatchSchema = z.strictObject({
+  note: z.string({ error: 'Use text.' }).trim().max(500, { error: 'Use at most 500 characters.' }),
+});
+export type ShareNotePatch = z.infer<typeof shareNotePatchSchema>;
 
 export const shareSchema = z.object({
   id: z.number().int(),
@@ -25,4 +34,5 @@ export const shareSchema = z.object({
 });
 export const shareResponseSchema = z.object({ share: shareSchema });
 export const shareListResponseSchema = z.object({ shares: z.array(shareSchema) });
+export const shareBinnedResponseSchema = z.object({ share: binnedRefSchema });
 export type Share = z.infer<typeof shareSchema>;

@@ -7,8 +7,9 @@ import { BIN_DAYS } from '@/lib/contracts/sessions';
 // files. A file left behind by a crash between the two is harmless; a row without its file would not be.
 
 // Drills (with their assignments), bands and drill assignments binned more than BIN_DAYS days ago go in the same
-// transaction; they have no files. `library` counts those rows.
-export type SweepResult = { sessions: number; recordings: number; files: number; library: number };
+// transaction; they have no files. `library` counts those rows. Shares a coach removed (shares.binned_at) go there too,
+// counted in `shares` (shares of a swept session or swing cascade with it and are not counted).
+export type SweepResult = { sessions: number; recordings: number; files: number; library: number; shares: number };
 
 export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()): Promise<SweepResult> {
   const cutoff = new Date(now.getTime() - BIN_DAYS * 24 * 60 * 60 * 1000);
@@ -48,7 +49,8 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
     for (const table of ['drill_assignments', 'drills', 'bands'] as const) {
       library += await trx(table).whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
     }
-    return { sessions: sessions.length, recordings: recordings.length, library };
+    const shares = await trx('shares').whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
+    return { sessions: sessions.length, recordings: recordings.length, library, shares };
   });
   let files = 0;
   for (const key of keys) {

@@ -85,6 +85,8 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_users_shot_units', 'users', 'shot_units'],
   // which form of the swing view's stored part a row holds (older forms are rebuilt on their next read)
   ['add_swing_payloads_format', 'swing_payloads', 'format'],
+  // the bin for shares: a coach removes what they sent a student, with undo for 30 days
+  ['add_shares_binned_at', 'shares', 'binned_at'],
 ];
 
 let scratch: ScratchDatabase;

@@ -71,6 +71,7 @@ const cases: Case[] = [
   // sharing: session 1 is Ada's (coach@'s player, linked to student@)
   { method: 'GET', path: '/api/shares', expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
   { method: 'POST', path: '/api/shares', body: () => ({ sessionId: 1 }), expected: { none: 401, admin: 403, coach: 201, coach2: 404, student: 403, researcher: 403 } },
+  { method: 'GET', path: '/api/athletes/1/shares', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 } },
   { method: 'GET', path: '/api/me/mail-preferences', expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
   { method: 'PATCH', path: '/api/me/mail-preferences', body: () => ({ drillReminders: true }), expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
   // demo mode (npm test runs the SMTP fake): admins only

@@ -16,7 +16,7 @@ import { acceptInvitationResponseSchema, invitationListResponseSchema, invitatio
 import { mailPreferencesResponseSchema } from '@/lib/contracts/mail-preferences';
 import { outboxResponseSchema } from '@/lib/contracts/outbox';
 import { passwordResetAcceptedSchema } from '@/lib/contracts/password-reset';
-import { shareListResponseSchema, shareResponseSchema } from '@/lib/contracts/shares';
+import { shareBinnedResponseSchema, shareListResponseSchema, shareResponseSchema } from '@/lib/contracts/shares';
 import { linkIn, mailsNow, waitForMail } from './support/mail';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { type HttpSession, signedIn } from './support/http-session';
@@ -148,8 +148,12 @@ describe('API answers match lib/contracts', () => {
     const { token } = linkIn(await waitForMail(email, before), '/invite');
     await conforms(coach, '/api/invitations/accept', acceptInvitationResponseSchema, json('POST', { token, password: 'a-long-enough-password' }));
     await conforms(coach, '/api/password-reset', passwordResetAcceptedSchema, json('POST', { email: `nobody-${email}` }), 202);
-    await conforms(coach, '/api/shares', shareResponseSchema, json('POST', { sessionId: 1, note: 'Contract check' }), 201);
+    const shared = (await conforms(coach, '/api/shares', shareResponseSchema, json('POST', { sessionId: 1, note: 'Contract check' }), 201)) as { share: { id: number } };
     await conforms(student, '/api/shares', shareListResponseSchema);
+    await conforms(coach, '/api/athletes/1/shares', shareListResponseSchema);
+    await conforms(coach, `/api/shares/${shared.share.id}`, shareResponseSchema, json('PATCH', { note: '' }));
+    await conforms(coach, `/api/shares/${shared.share.id}`, shareBinnedResponseSchema, { method: 'DELETE' });
+    await conforms(coach, `/api/shares/${shared.share.id}/restore`, shareResponseSchema, { method: 'POST' });
     await conforms(student, '/api/me/mail-preferences', mailPreferencesResponseSchema);
     await conforms(student, '/api/me/mail-preferences', mailPreferencesResponseSchema, json('PATCH', { drillReminders: true }));
     await conforms(admin, '/api/outbox', outboxResponseSchema);

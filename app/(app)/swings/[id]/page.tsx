@@ -68,7 +68,7 @@ export default async function SwingPage({ params }: { params: Promise<{ id: stri
         {swing.athlete.dateOfBirth && isMinor(swing.athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={swing.athlete.dateOfBirth} />}
         <SwingWorkbench swingId={swing.id} initial={swing} />
         {/* below the viewer: on a tablet the traces come first (issue 12), sharing is an after-the-lesson step */}
-        {viewer.role === 'coach' && <ShareWithStudent target={{ swingId: swing.id }} athleteName={swing.athlete.displayName} />}
+        {viewer.role === 'coach' && <ShareWithStudent target={{ swingId: swing.id }} athleteId={swing.athlete.id} athleteName={swing.athlete.displayName} />}
         {viewer.role === 'coach' && (
           <details className="rounded-lg border border-surface-line bg-surface" data-testid="processing-details">
             <summary className="flex min-h-11 cursor-pointer items-center px-4 text-sm font-medium text-ink">Processing details</summary>

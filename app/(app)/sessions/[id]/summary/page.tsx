@@ -82,7 +82,7 @@ export default async function LessonSummaryPage({ params, searchParams }: { para
       />
       <div className="space-y-5">
         <CoachingCaution />
-        {viewer.role === 'coach' && <ShareWithStudent target={{ sessionId: view.session.id }} athleteName={athlete.displayName} />}
+        {viewer.role === 'coach' && <ShareWithStudent target={{ sessionId: view.session.id }} athleteId={athlete.id} athleteName={athlete.displayName} />}
         {athlete.dateOfBirth && isMinor(athlete.dateOfBirth) && <MinorConsentNote dateOfBirth={athlete.dateOfBirth} />}
 
         <Card title="Coach’s notes">

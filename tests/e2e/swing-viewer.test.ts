@@ -228,4 +228,38 @@ describe('the swing viewer', () => {
     expect(top.timeS).toBeCloseTo(eventTime(before, 'top'), 3); // the automatic value, kept through the correction
     expect(await marker.getAttribute('data-corrected')).toBeNull();
   });
+  it('coach at 1024x768: sends the swing to the student, edits the note, removes it and undoes; the student sees it', async () => {
+    await coachPage.setViewportSize({ width: 1024, height: 768 });
+    await coachPage.goto(`${baseUrl}/swings/${swingId}`);
+    await viewerReady(coachPage);
+    const control = coachPage.getByTestId('share-with-student');
+    await control.locator('summary').click();
+    const sent = control.getByTestId('sent-shares');
+    await sent.getByText(/Nothing sent to|Sent to the student/).first().waitFor();
+    const sharesBefore = await sent.locator('li[data-share-id]').count();
+    await control.locator('#share-note').fill('Watch the lead heel at the top.');
+    await control.getByRole('button', { name: 'Send', exact: true }).click();
+    await expect.poll(() => sent.locator('li[data-share-id]').count(), { timeout: 15_000 }).toBe(sharesBefore + 1);
+    const item = sent.locator('li[data-share-id]').first(); // newest first
+    await item.getByText('Watch the lead heel at the top.').waitFor();
+
+    await item.getByRole('button', { name: /^Edit the note/ }).click();
+    const field = item.getByRole('textbox');
+    await field.fill('Watch the lead heel from the top to impact.');
+    await coachPage.screenshot({ path: screenshotPath('e2e-share-edit-1024'), fullPage: false });
+    await item.getByRole('button', { name: 'Save note' }).click();
+    await item.getByText('Watch the lead heel from the top to impact.').waitFor();
+
+    await item.getByRole('button', { name: /^Remove the swing/ }).click();
+    await item.getByRole('alertdialog').getByRole('button', { name: 'Remove', exact: true }).click();
+    await expect.poll(() => sent.locator('li[data-share-id]').count(), { timeout: 15_000 }).toBe(sharesBefore);
+    await sent.getByRole('button', { name: 'Undo' }).click();
+    await expect.poll(() => sent.locator('li[data-share-id]').count(), { timeout: 15_000 }).toBe(sharesBefore + 1);
+    await coachPage.screenshot({ path: screenshotPath('e2e-share-sent-1024'), fullPage: false });
+    await coachPage.setViewportSize({ width: 1280, height: 800 });
+
+    await studentPage.goto(`${baseUrl}/`);
+    const list = studentPage.getByTestId('shared-with-me');
+    await list.getByText('Watch the lead heel from the top to impact.').waitFor({ timeout: 15_000 });
+  });
 });

@@ -7,6 +7,7 @@ import { spoolDirOf } from '@/lib/storage/spool';
 import { sweepBin } from '@/lib/sessions/bin';
 import { defaultThreads, getTaskPool } from './pool';
 import { sendDueTomorrowReminders } from '@/lib/accounts/drill-mail';
+import { sweepSpentTokens } from '@/lib/accounts/token-sweep';
 import { startWorker, type Worker } from './worker';
 import { startVideoWorker } from '@/lib/videos/worker';
 
@@ -37,7 +38,10 @@ export function startAppWorker(): Worker | null {
   const sweep = () =>
     void sweepBin(db, getStore())
       .then((r) => r.sessions + r.recordings + r.library + r.shares > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files, ${r.library} drills, bands and assignments, ${r.shares} shares`))
-      .catch((error) => console.error('[stanceline bin] sweep failed', error));
+      .catch((error) => console.error('[stanceline bin] sweep failed', error))
+      .then(() => sweepSpentTokens(db))
+      .then((r) => r.resets + r.invitations > 0 && console.log(`[stanceline accounts] removed ${r.resets} spent password-reset links, ${r.invitations} old unaccepted invitations`))
+      .catch((error) => console.error('[stanceline accounts] link sweep failed', error));
   sweep();
   setInterval(sweep, BIN_SWEEP_EVERY_MS).unref();
   // Drill reminders for drills due tomorrow: hourly, so a restart never skips a day; mail_log keeps it to one a day.

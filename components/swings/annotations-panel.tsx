@@ -9,7 +9,7 @@ import { ConfirmButton, UndoLine } from '@/components/ui/confirm-button';
 import { inputClass } from '@/components/ui/field';
 import { PHASES } from '@/lib/signal/types';
 import { phaseLabels } from './labels';
-import { createAnnotation, deleteAnnotation, errorText, updateAnnotation } from './swing-api';
+import { createAnnotation, deleteAnnotation, errorText, restoreAnnotation, updateAnnotation } from './swing-api';
 import { phaseNames, type Annotation } from '@/lib/contracts/swings';
 
 /** Where a note sits on the swing's time axis: its time, or the start event of its phase. */
@@ -87,7 +87,7 @@ function NoteEdit({ swingId, note, onDone, onChanged }: { swingId: number; note:
 export function AnnotationList({ annotations, events, timeZero, canEdit, swingId, onChanged }: Omit<AnnotationsPanelProps, 'cursorTime'>) {
   const [error, setError] = useState<string | null>(null);
   const [editing, setEditing] = useState<number | null>(null);
-  // a deleted note, kept here so Undo can write it again (same text, pin and visibility)
+  // a deleted note (in the bin on the server): Undo restores it, the same note with its id
   const [deleted, setDeleted] = useState<Annotation | null>(null);
   const sorted = sortAnnotations(annotations, events);
   const act = async (f: () => Promise<unknown>) => {
@@ -103,7 +103,7 @@ export function AnnotationList({ annotations, events, timeZero, canEdit, swingId
     <UndoLine
       message={`Note deleted: “${deleted.body.length > 60 ? `${deleted.body.slice(0, 60)}…` : deleted.body}”`}
       onUndo={async () => {
-        await createAnnotation(swingId, { body: deleted.body, visibility: deleted.visibility, ...(deleted.timeS !== null ? { timeS: deleted.timeS } : deleted.phase ? { phase: deleted.phase } : {}) });
+        await restoreAnnotation(swingId, deleted.id);
         onChanged();
       }}
       onDismiss={() => setDeleted(null)}

@@ -22,7 +22,11 @@ export const createAnnotation = (swingId: number, body: AnnotationInput) =>
 export const updateAnnotation = (swingId: number, annotationId: number, body: Partial<AnnotationInput>) =>
   sendJson(`${swingUrl(swingId)}/annotations/${annotationId}`, 'PATCH', body, annotationResponseSchema);
 
-/** DELETE answers 204 with no body. */
+/** Undo of a removal: the same note back (the server keeps removed notes in the bin). */
+export const restoreAnnotation = (swingId: number, annotationId: number) =>
+  sendJson(`${swingUrl(swingId)}/annotations/${annotationId}/restore`, 'POST', undefined, annotationResponseSchema);
+
+/** DELETE answers 204 with no body; the note goes to the bin. */
 export async function deleteAnnotation(swingId: number, annotationId: number): Promise<void> {
   await deleteJson(`${swingUrl(swingId)}/annotations/${annotationId}`);
 }

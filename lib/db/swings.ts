@@ -97,7 +97,7 @@ function swingQuery(conn: Knex, view: boolean, viewerId: number, swingId: number
       conn.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index < s.swing_index ORDER BY x.swing_index DESC LIMIT 1) AS previous_id'),
       conn.raw('(SELECT x.id FROM swings x WHERE x.recording_id = s.recording_id AND x.swing_index > s.swing_index ORDER BY x.swing_index ASC LIMIT 1) AS next_id'),
       // whether the notes and the correction log need a query of their own (most swings have neither)
-      conn.raw('EXISTS (SELECT 1 FROM swing_annotations n WHERE n.swing_id = s.id) AS has_notes'),
+      conn.raw('EXISTS (SELECT 1 FROM swing_annotations n WHERE n.swing_id = s.id AND n.binned_at IS NULL) AS has_notes'),
       conn.raw('EXISTS (SELECT 1 FROM swing_event_corrections c WHERE c.swing_id = s.id) AS has_corrections'),
     );
   }

@@ -37,7 +37,7 @@ export function startAppWorker(): Worker | null {
   // The bin's sweep (sessions, recordings, drills, bands and assignments deleted more than 30 days ago) runs beside the worker, once an hour.
   const sweep = () =>
     void sweepBin(db, getStore())
-      .then((r) => r.sessions + r.recordings + r.library + r.shares > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files, ${r.library} drills, bands and assignments, ${r.shares} shares`))
+      .then((r) => r.sessions + r.recordings + r.library + r.shares + r.notes > 0 && console.log(`[stanceline bin] removed ${r.sessions} sessions, ${r.recordings} recordings, ${r.files} raw files, ${r.library} drills, bands and assignments, ${r.shares} shares, ${r.notes} notes`))
       .catch((error) => console.error('[stanceline bin] sweep failed', error))
       .then(() => sweepSpentTokens(db))
       .then((r) => r.resets + r.invitations > 0 && console.log(`[stanceline accounts] removed ${r.resets} spent password-reset links, ${r.invitations} old unaccepted invitations`))

@@ -8,8 +8,9 @@ import { BIN_DAYS } from '@/lib/contracts/sessions';
 
 // Drills (with their assignments), bands and drill assignments binned more than BIN_DAYS days ago go in the same
 // transaction; they have no files. `library` counts those rows. Shares a coach removed (shares.binned_at) go there too,
-// counted in `shares` (shares of a swept session or swing cascade with it and are not counted).
-export type SweepResult = { sessions: number; recordings: number; files: number; library: number; shares: number };
+// counted in `shares` (shares of a swept session or swing cascade with it and are not counted), and so do removed swing
+// notes (swing_annotations.binned_at), counted in `notes`.
+export type SweepResult = { sessions: number; recordings: number; files: number; library: number; notes: number; shares: number };
 
 export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()): Promise<SweepResult> {
   const cutoff = new Date(now.getTime() - BIN_DAYS * 24 * 60 * 60 * 1000);
@@ -50,7 +51,8 @@ export async function sweepBin(db: Knex, store: RawFileStore, now = new Date()):
       library += await trx(table).whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
     }
     const shares = await trx('shares').whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
-    return { sessions: sessions.length, recordings: recordings.length, library, shares };
+    const notes = await trx('swing_annotations').whereNotNull('binned_at').andWhere('binned_at', '<=', cutoff).delete();
+    return { sessions: sessions.length, recordings: recordings.length, library, shares, notes };
   });
   let files = 0;
   for (const key of keys) {

@@ -3,11 +3,14 @@ import type { Viewer } from '@/lib/auth/viewer';
 import type { Annotation } from '@/lib/contracts/swings';
 import { db } from '@/lib/db/client';
 import { ZodError } from 'zod';
-import { ForbiddenError, NotFoundError } from '@/lib/http';
+import { ConflictError, ForbiddenError, NotFoundError } from '@/lib/http';
+import { BIN_DAYS } from '@/lib/contracts/sessions';
+import { withinBin } from '@/lib/sessions/store';
 import type { AnnotationCreateInput, AnnotationPatchInput } from '@/lib/contracts/swings';
 
 // Notes on a swing. Coaches see all of a swing's notes; the student only those shared with them. A note is changed
-// or removed by its author or by the athlete's coach (route handlers check the coach first).
+// or removed by its author or by the athlete's coach (route handlers check the coach first). A removed note goes to
+// the bin (binned_at) and its undo restores the same note; the bin's sweep removes it after BIN_DAYS.
 
 type NoteRow = { id: number; author_name: string | null; author_role: string | null; body: string; time_s: number | null; phase: Annotation['phase']; visibility: Annotation['visibility']; created_at: Date; updated_at: Date };
 
@@ -25,8 +28,10 @@ function toAnnotation(r: NoteRow): Annotation {
   };
 }
 
+// notes in the bin (removed, restorable for BIN_DAYS) are left out everywhere but the restore
 const noteQuery = () =>
   db('swing_annotations as n')
+    .whereNull('n.binned_at')
     .leftJoin('users as u', 'u.id', 'n.author_user_id')
     .select('n.id', 'u.name as author_name', 'u.role as author_role', 'n.body', 'n.time_s', 'n.phase', 'n.visibility', 'n.created_at', 'n.updated_at');
 
@@ -69,9 +74,12 @@ export async function createAnnotation(viewer: Viewer, swingId: number, input: A
   return one(Number(id));
 }
 
-async function noteOf(swingId: number, annotationId: number): Promise<{ author_user_id: number | null }> {
-  const row = await db('swing_annotations').where({ id: annotationId, swing_id: swingId }).first('author_user_id');
-  if (!row) throw new NotFoundError('No note with this id on this swing.');
+async function noteOf(swingId: number, annotationId: number, binned = false): Promise<{ author_user_id: number | null; binned_at: Date }> {
+  const row = await db('swing_annotations')
+    .where({ id: annotationId, swing_id: swingId })
+    .where((q) => (binned ? q.whereNotNull('binned_at') : q.whereNull('binned_at')))
+    .first('author_user_id', 'binned_at');
+  if (!row) throw new NotFoundError(binned ? 'No removed note with this id on this swing.' : 'No note with this id on this swing.');
   return row;
 }
 
@@ -90,5 +98,14 @@ export async function updateAnnotation(viewer: Viewer, isCoach: boolean, swingId
 export async function deleteAnnotation(viewer: Viewer, isCoach: boolean, swingId: number, annotationId: number): Promise<void> {
   const note = await noteOf(swingId, annotationId);
   if (!isCoach && Number(note.author_user_id) !== viewer.id) throw new ForbiddenError('Only the author or the athlete’s coach can remove this note.');
-  await db('swing_annotations').where({ id: annotationId }).delete();
+  await db('swing_annotations').where({ id: annotationId }).whereNull('binned_at').update({ binned_at: db.raw('NOW(3)') });
+}
+
+/** Undo of a removal: the same note (id, text, pin, visibility) back, within BIN_DAYS of its removal (409 after). */
+export async function restoreAnnotation(viewer: Viewer, isCoach: boolean, swingId: number, annotationId: number, now = new Date()): Promise<Annotation> {
+  const note = await noteOf(swingId, annotationId, true);
+  if (!isCoach && Number(note.author_user_id) !== viewer.id) throw new ForbiddenError('Only the author or the athlete’s coach can restore this note.');
+  if (!withinBin(note.binned_at, now)) throw new ConflictError(`This note was removed more than ${BIN_DAYS} days ago and can no longer be restored.`);
+  await db('swing_annotations').where({ id: annotationId }).update({ binned_at: null });
+  return one(annotationId);
 }

@@ -29,6 +29,7 @@ export async function summaryExtras(swingIds: number[]): Promise<{ labels: Map<n
       .leftJoin('users as u', 'u.id', 'n.author_user_id')
       .whereIn('n.swing_id', swingIds)
       .andWhere('n.visibility', 'shared')
+      .whereNull('n.binned_at')
       .orderBy(['n.swing_id', 'n.id'])
       .select('n.id', 'n.swing_id', 'u.name as author_name', 'n.body', 'n.time_s', 'n.phase'),
   ]);

@@ -262,4 +262,18 @@ describe('the swing viewer', () => {
     const list = studentPage.getByTestId('shared-with-me');
     await list.getByText('Watch the lead heel from the top to impact.').waitFor({ timeout: 15_000 });
   });
+  it('coach: deletes the shared note after a confirmation and undoes it: the same note comes back', async () => {
+    await coachPage.goto(`${baseUrl}/swings/${swingId}`);
+    await viewerReady(coachPage);
+    const before = (await getSwing(coachApi, swingId)).annotations.find((a) => a.body === NOTE)!;
+    const item = coachPage.getByTestId('annotation').filter({ hasText: NOTE });
+    await item.getByRole('button', { name: /^Delete the note/ }).click();
+    await item.getByRole('alertdialog').getByRole('button', { name: 'Delete note' }).click();
+    await expect.poll(() => coachPage.getByTestId('annotation').filter({ hasText: NOTE }).count(), { timeout: 15_000 }).toBe(0);
+    expect((await getSwing(coachApi, swingId)).annotations.some((a) => a.body === NOTE)).toBe(false);
+    await coachPage.getByTestId('undo-line').getByRole('button', { name: 'Undo' }).click();
+    await coachPage.getByTestId('annotation').filter({ hasText: NOTE }).waitFor({ timeout: 15_000 });
+    const after = (await getSwing(coachApi, swingId)).annotations.find((a) => a.body === NOTE)!;
+    expect(after).toEqual(before); // the same note, id, pin, visibility and times
+  });
 });

@@ -11,7 +11,8 @@ import { timeAxis } from '@/components/swings/swing-view-model';
 import { generateSession } from '@/lib/signal/synthetic';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
-import { serverDb, settled, upload } from './support/recordings-http';
+import { serverDb, serverStore, settled, upload } from './support/recordings-http';
+import { sweepBin } from '@/lib/sessions/bin';
 
 // Writes on a swing against the running app: moving and resetting events (with their audit and the
 // recomputed numbers), labels, "not a swing", notes and their visibility, and the role matrix of every route.
@@ -285,6 +286,20 @@ describe('annotations', () => {
     expect((await sessions.get('coach')!.fetch(`${path}/${id}`, { method: 'DELETE' })).status).toBe(204);
     expect((await sessions.get('coach')!.fetch(`${path}/${id}`, { method: 'DELETE' })).status).toBe(404);
     expect(bodies(await getSwing('student', swingIds[0]))).toHaveLength(1);
+
+    // the removed note waits in the bin: undo brings back the same note, id and all
+    expect((await send('student', 'POST', `${path}/${id}/restore`)).status).toBe(403);
+    const restored = await send('coach', 'POST', `${path}/${id}/restore`);
+    expect(restored.status).toBe(200);
+    expect((restored.body as { annotation: unknown }).annotation).toMatchObject({ id, visibility: 'shared', timeS: t2 });
+    expect(bodies(await getSwing('student', swingIds[0]))).toHaveLength(2);
+    expect((await send('coach', 'POST', `${path}/${id}/restore`)).status).toBe(404); // not in the bin any more
+    // past the bin's 30 days: 409, and the sweep removes it
+    expect((await sessions.get('coach')!.fetch(`${path}/${id}`, { method: 'DELETE' })).status).toBe(204);
+    await db('swing_annotations').where({ id }).update({ binned_at: db.raw('NOW(3) - INTERVAL 31 DAY') });
+    expect((await send('coach', 'POST', `${path}/${id}/restore`)).status).toBe(409);
+    expect((await sweepBin(db, serverStore()!)).notes).toBeGreaterThanOrEqual(1);
+    expect(await db('swing_annotations').where({ id }).first('id')).toBeUndefined();
   });
 });
 
@@ -306,6 +321,16 @@ describe('role matrix of every swing route', () => {
     { name: 'POST a note', method: 'POST', path: () => `/api/swings/${swingIds[0]}/annotations`, body: { body: 'matrix', visibility: 'coach' }, expected: { ...write, coach: 201 } },
     { name: 'PATCH a note', method: 'PATCH', path: note, body: { body: 'matrix note, edited' }, expected: write },
     { name: 'DELETE a note', method: 'DELETE', path: note, expected: { ...write, coach: 204 } },
+    {
+      name: 'POST restore of a removed note',
+      method: 'POST',
+      path: async () => {
+        const p = await note();
+        await sessions.get('coach')!.fetch(p, { method: 'DELETE' });
+        return `${p}/restore`;
+      },
+      expected: write,
+    },
   ];
   for (const c of cases) {
     it(`${c.name}: ${Object.entries(c.expected).map(([a, n]) => `${a} ${n}`).join(', ')}`, async () => {

@@ -33,6 +33,8 @@ export const reviewOfferSchema = z.object({
   priceCents: z.number().int(),
   currency: z.string(),
   turnaroundDays: z.number().int(),
+  /** when the coach stopped taking requests (ISO time), or null while the offer is open; only the coach sees it set */
+  withdrawnAt: z.string().nullable(),
 });
 export type ReviewOffer = z.infer<typeof reviewOfferSchema>;
 export const reviewOfferResponseSchema = z.object({ offer: reviewOfferSchema });

@@ -52,37 +52,60 @@ export async function moveReview(trx: Knex.Transaction, reviewId: number, to: Re
 
 // ---- the coach's offer ------------------------------------------------------------------------------------------
 
+/** Sets the coach's offer; offering again after a withdrawal clears withdrawn_at. */
 export async function putOffer(viewer: Viewer, input: ReviewOfferInput, now = new Date()): Promise<ReviewOffer> {
-  const row = { price_cents: input.priceCents, currency: input.currency, turnaround_days: input.turnaroundDays, updated_at: now };
+  const row = { price_cents: input.priceCents, currency: input.currency, turnaround_days: input.turnaroundDays, withdrawn_at: null, updated_at: now };
   await db('review_offers').insert({ coach_user_id: viewer.id, ...row }).onConflict('coach_user_id').merge(row);
-  return { coachUserId: viewer.id, coachName: viewer.name, ...input };
+  return { coachUserId: viewer.id, coachName: viewer.name, ...input, withdrawnAt: null };
+}
+
+/**
+ * The coach stops taking requests: withdrawn_at is set (kept from the first withdrawal if already set); the price,
+ * currency and turnaround stay for offering again. Requests already made keep going at their own price.
+ */
+export async function withdrawOffer(viewer: Viewer, now = new Date()): Promise<ReviewOffer> {
+  const existing = await db('review_offers').where({ coach_user_id: viewer.id }).first('withdrawn_at');
+  if (!existing) throw new NotFoundError('You have no review offer to withdraw.');
+  if (!existing.withdrawn_at) await db('review_offers').where({ coach_user_id: viewer.id }).whereNull('withdrawn_at').update({ withdrawn_at: now, updated_at: now });
+  const [offer] = (await offerQuery().where('o.coach_user_id', viewer.id)).map(toOffer);
+  if (!offer) throw new NotFoundError('You have no review offer to withdraw.');
+  return offer;
 }
 
 function offerQuery() {
   return db('review_offers as o')
     .join('users as u', 'u.id', 'o.coach_user_id')
     .where('u.active', true)
-    .select('o.coach_user_id', 'u.name', 'o.price_cents', 'o.currency', 'o.turnaround_days');
+    .select('o.coach_user_id', 'u.name', 'o.price_cents', 'o.currency', 'o.turnaround_days', 'o.withdrawn_at');
 }
 
-const toOffer = (r: { coach_user_id: number; name: string; price_cents: number; currency: string; turnaround_days: number }): ReviewOffer => ({
+type OfferRow = { coach_user_id: number; name: string; price_cents: number; currency: string; turnaround_days: number; withdrawn_at: unknown };
+
+const toOffer = (r: OfferRow): ReviewOffer => ({
   coachUserId: Number(r.coach_user_id),
   coachName: r.name,
   priceCents: Number(r.price_cents),
   currency: r.currency,
   turnaroundDays: Number(r.turnaround_days),
+  withdrawnAt: toIsoTime(r.withdrawn_at),
 });
 
-/** A coach: their own offer (or none). A student: the offers of their coaches. */
-export async function offersFor(viewer: Viewer): Promise<ReviewOffer[]> {
-  if (viewer.role === 'coach') return (await offerQuery().where('o.coach_user_id', viewer.id)).map(toOffer);
-  if (viewer.role !== 'student') return [];
-  const rows = await offerQuery()
+/** The offers of a student's coaches, open ones only unless `withWithdrawn`. */
+async function studentOffers(viewer: Viewer, withWithdrawn: boolean): Promise<ReviewOffer[]> {
+  const q = offerQuery()
     .join('coach_athletes as ca', 'ca.coach_user_id', 'o.coach_user_id')
     .join('athletes as a', 'a.id', 'ca.athlete_id')
     .where('a.user_id', viewer.id)
     .orderBy('o.coach_user_id');
-  return rows.map(toOffer);
+  if (!withWithdrawn) q.whereNull('o.withdrawn_at');
+  return ((await q) as OfferRow[]).map(toOffer);
+}
+
+/** A coach: their own offer, withdrawn or not (or none). A student: the open offers of their coaches. */
+export async function offersFor(viewer: Viewer): Promise<ReviewOffer[]> {
+  if (viewer.role === 'coach') return ((await offerQuery().where('o.coach_user_id', viewer.id)) as OfferRow[]).map(toOffer);
+  if (viewer.role !== 'student') return [];
+  return studentOffers(viewer, false);
 }
 
 // ---- the student's request --------------------------------------------------------------------------------------
@@ -121,9 +144,19 @@ export async function createReview(viewer: Viewer, input: CreateReviewInput, now
     throw new ConflictError(`This recording is not ready for a review yet (it is ${exists.status}); pick one marked ready.`);
   }
   const offer = (await offersFor(viewer))[0];
-  if (!offer) throw new ConflictError('Your coach does not offer remote reviews yet.');
+  if (!offer) {
+    const withdrawn = (await studentOffers(viewer, true))[0];
+    if (withdrawn) throw new ConflictError(`${withdrawn.coachName} is not taking review requests at the moment. Requests you already made go on as before.`);
+    throw new ConflictError('Your coach does not offer remote reviews yet.');
+  }
   const client = payments();
   const id = await db.transaction(async (trx) => {
+    // the offer may have been withdrawn or changed since it was read: lock it and take the price from the locked row
+    const current = await trx('review_offers').where({ coach_user_id: offer.coachUserId }).forUpdate().first('price_cents', 'currency', 'turnaround_days', 'withdrawn_at');
+    if (!current || current.withdrawn_at) throw new ConflictError(`${offer.coachName} is not taking review requests at the moment. Requests you already made go on as before.`);
+    offer.priceCents = Number(current.price_cents);
+    offer.currency = current.currency;
+    offer.turnaroundDays = Number(current.turnaround_days);
     const [reviewId] = await trx('reviews').insert({
       academy_id: athlete.academy_id,
       athlete_id: athlete.id,

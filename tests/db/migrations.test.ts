@@ -87,6 +87,8 @@ const ALTERATIONS: [string, string, string][] = [
   ['add_swing_payloads_format', 'swing_payloads', 'format'],
   // the bin for shares: a coach removes what they sent a student, with undo for 30 days
   ['add_shares_binned_at', 'shares', 'binned_at'],
+  // a coach stops taking review requests (the offer row is kept so it can be offered again)
+  ['add_review_offers_withdrawn_at', 'review_offers', 'withdrawn_at'],
   // removed swing notes wait in the bin
   ['add_swing_annotations_binned_at', 'swing_annotations', 'binned_at'],
 ];

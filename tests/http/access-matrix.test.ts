@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { sampleRecording } from './support/recordings-http';
@@ -76,6 +76,8 @@ const cases: Case[] = [
   { method: 'PATCH', path: '/api/me/mail-preferences', body: () => ({ drillReminders: true }), expected: { none: 401, admin: 403, coach: 403, coach2: 403, student: 200, researcher: 403 } },
   // demo mode (npm test runs the SMTP fake): admins only
   { method: 'GET', path: '/api/outbox', expected: { none: 401, admin: 200, coach: 403, coach2: 403, student: 403, researcher: 403 } },
+  // remote reviews: coach@ withdraws the seeded offer (afterAll offers it again); coach2@ has no offer, so 404
+  { method: 'DELETE', path: '/api/review-offer', expected: { none: 401, admin: 403, coach: 200, coach2: 404, student: 403, researcher: 403 } },
 ];
 
 const sessions = new Map<Actor, HttpSession>();
@@ -86,6 +88,12 @@ beforeAll(async () => {
   for (const actor of actors.filter((a): a is Exclude<Actor, 'none'> => a !== 'none')) {
     sessions.set(actor, await signedIn(E2E_BASE_URL, DEMO[actor], DEMO_PASSWORD));
   }
+});
+
+// the DELETE /api/review-offer case withdrew coach@'s offer: offer it again (the seeded values) for the files after this
+afterAll(async () => {
+  const res = await sessions.get('coach')?.json('/api/review-offer', { method: 'PUT', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ priceCents: 4500, currency: 'EUR', turnaroundDays: 3 }) });
+  expect(res?.status).toBe(200);
 });
 
 describe('access matrix', () => {

@@ -16,6 +16,7 @@ import { acceptInvitationResponseSchema, invitationListResponseSchema, invitatio
 import { mailPreferencesResponseSchema } from '@/lib/contracts/mail-preferences';
 import { outboxResponseSchema } from '@/lib/contracts/outbox';
 import { passwordResetAcceptedSchema } from '@/lib/contracts/password-reset';
+import { reviewOfferResponseSchema, reviewOffersResponseSchema } from '@/lib/contracts/reviews';
 import { shareBinnedResponseSchema, shareListResponseSchema, shareResponseSchema } from '@/lib/contracts/shares';
 import { linkIn, mailsNow, waitForMail } from './support/mail';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
@@ -64,6 +65,18 @@ describe('API answers match lib/contracts', () => {
     await conforms(coach, '/api/shot-profiles', shotProfilesResponseSchema);
     await conforms(student, '/api/athletes/1/outcomes/ranking?outcome=carry', rankingResponseSchema);
     await conforms(coach, '/api/athletes/1/outcomes/sessions', outcomeSessionsResponseSchema);
+  });
+
+  it('the coach’s review offer: GET, DELETE (withdrawn), GET (still the coach’s), PUT (offered again)', async () => {
+    const offer = { priceCents: 4500, currency: 'EUR', turnaroundDays: 3 };
+    await conforms(coach, '/api/review-offer', reviewOfferResponseSchema, json('PUT', offer));
+    await conforms(student, '/api/review-offer', reviewOffersResponseSchema);
+    const withdrawn = (await conforms(coach, '/api/review-offer', reviewOfferResponseSchema, { method: 'DELETE' })) as { offer: { withdrawnAt: string | null } };
+    expect(withdrawn.offer.withdrawnAt).toMatch(/^\d{4}-\d{2}-\d{2}T/);
+    const own = (await conforms(coach, '/api/review-offer', reviewOffersResponseSchema)) as { offers: { withdrawnAt: string | null }[] };
+    expect(own.offers).toEqual([expect.objectContaining({ withdrawnAt: withdrawn.offer.withdrawnAt })]);
+    const back = (await conforms(coach, '/api/review-offer', reviewOfferResponseSchema, json('PUT', offer))) as { offer: { withdrawnAt: string | null } };
+    expect(back.offer.withdrawnAt).toBeNull();
   });
 
   it('users', async () => {

@@ -1,6 +1,7 @@
 // Paid remote reviews over HTTP against the running app, its payments fake (scripts/lib/fakes/payments.ts, reached
 // by the app through the official `stripe` SDK) and its SMTP fake: request -> checkout -> signed webhook -> paid ->
-// delivered -> the student's mail; bad signatures; replays and out-of-order events; refunds; the role matrix.
+// delivered -> the student's mail; bad signatures; replays and out-of-order events; refunds; the role matrix; the coach
+// withdrawing the offer and offering it again.
 //
 // The webhook signatures this test makes follow the provider's published scheme (Stripe docs, "Verify webhook
 // signatures manually": header `t=<timestamp>,v1=<hex HMAC-SHA256(secret, "<timestamp>.<raw body>")>`), computed here
@@ -300,5 +301,79 @@ describe('role matrix', () => {
     const refunded = Number(sums.find((s) => s.kind === 'refund')?.s ?? 0);
     expect(paid).toBeGreaterThanOrEqual(3 * 4500); // this file paid three reviews
     expect(mine).toMatchObject({ paidCents: paid, refundedCents: refunded, netCents: paid - refunded });
+  });
+});
+
+describe('the coach withdraws the offer, then offers it again', () => {
+  type OfferBody = { coachUserId: number; coachName: string; priceCents: number; currency: string; turnaroundDays: number; withdrawnAt: string | null };
+
+  it('DELETE /api/review-offer: coach 200, student and admin 403, no session 401, a coach without an offer 404', async () => {
+    expect((await coach.json('/api/review-offer', json('PUT', { priceCents: 4500, currency: 'EUR', turnaroundDays: 3 }))).status).toBe(200);
+    expect((await student.json('/api/review-offer', { method: 'DELETE' })).status).toBe(403);
+    expect((await admin.json('/api/review-offer', { method: 'DELETE' })).status).toBe(403);
+    expect((await researcher.json('/api/review-offer', { method: 'DELETE' })).status).toBe(403);
+    expect((await new HttpSession(env.E2E_BASE_URL).json('/api/review-offer', { method: 'DELETE' })).status).toBe(401);
+    const coach2Id = Number((await db('users').where({ email: DEMO.coach2 }).first('id')).id);
+    await db('review_offers').where({ coach_user_id: coach2Id }).del();
+    const none = await coach2.json('/api/review-offer', { method: 'DELETE' });
+    expect(none.status).toBe(404);
+    expect(none.body).toMatchObject({ error: { code: expect.any(String), message: expect.stringMatching(/no review offer/) } });
+    // nothing above withdrew coach@'s offer
+    expect((await student.json('/api/review-offer')).body).toMatchObject({ offers: [{ coachName: 'Maren Solberg', withdrawnAt: null }] });
+  });
+
+  it('after the withdrawal: invisible to the student, a new request 409; open requests go on at their own price; PUT offers again', async () => {
+    // made before the withdrawal: one paid, one still waiting for payment
+    const paidOne = await request('Paid before the coach stopped taking requests.');
+    expect((await pay(paidOne.checkoutUrl)).status).toBe(303);
+    expect((await review(student, paidOne.id)).status).toBe('paid');
+    const unpaidOne = await request('Made before the coach stopped, paid after.');
+
+    const before = Date.now();
+    const withdrawn = await coach.json('/api/review-offer', { method: 'DELETE' });
+    expect(withdrawn.status, JSON.stringify(withdrawn.body)).toBe(200);
+    const offer = (withdrawn.body as { offer: OfferBody }).offer;
+    expect(offer).toMatchObject({ coachName: 'Maren Solberg', priceCents: 4500, currency: 'EUR', turnaroundDays: 3 });
+    expect(Date.parse(offer.withdrawnAt!)).toBeGreaterThanOrEqual(before - 1000);
+    // the row and its values are kept
+    expect(await db('review_offers').where({ coach_user_id: offer.coachUserId }).first('price_cents', 'currency', 'turnaround_days')).toEqual({ price_cents: 4500, currency: 'EUR', turnaround_days: 3 });
+    // a second DELETE changes nothing: the first withdrawal time stays
+    const again = await coach.json('/api/review-offer', { method: 'DELETE' });
+    expect(again.status).toBe(200);
+    expect((again.body as { offer: OfferBody }).offer.withdrawnAt).toBe(offer.withdrawnAt);
+
+    // the coach still sees it (the form shows it and offers it again); the student does not
+    expect((await coach.json('/api/review-offer')).body).toEqual({ offers: [offer] });
+    expect((await student.json('/api/review-offer')).body).toEqual({ offers: [] });
+
+    // a new request: 409 with a clear message, and no review row
+    const rowsBefore = Number((await db('reviews').count({ n: '*' }))[0].n);
+    const refused = await student.json('/api/reviews', json('POST', { recordingId, question: 'Can I still ask for a review?' }));
+    expect(refused.status).toBe(409);
+    expect((refused.body as { error: { message: string } }).error.message).toMatch(/Maren Solberg is not taking review requests/);
+    expect(Number((await db('reviews').count({ n: '*' }))[0].n)).toBe(rowsBefore);
+
+    // the request made before is paid after the withdrawal, at its own price
+    expect((await pay(unpaidOne.checkoutUrl)).status).toBe(303);
+    const lateBody = await review(student, unpaidOne.id);
+    expect(lateBody.status).toBe('paid');
+    expect(lateBody.payments).toEqual([expect.objectContaining({ kind: 'payment', amountCents: 4500, currency: 'EUR' })]);
+
+    // the paid one is started and delivered as before
+    expect((await coach.json(`/api/reviews/${paidOne.id}/start`, { method: 'POST' })).body).toMatchObject({ status: 'in_review' });
+    const delivered = await coach.json(`/api/reviews/${paidOne.id}/deliver`, json('POST', { summary: 'Delivered after you stopped taking requests: the open ones still count.' }));
+    expect(delivered.status, JSON.stringify(delivered.body)).toBe(200);
+    expect(delivered.body).toMatchObject({ status: 'delivered', priceCents: 4500, currency: 'EUR' });
+    const late = await coach.json(`/api/reviews/${unpaidOne.id}/deliver`, json('POST', { summary: 'Also delivered after the withdrawal, paid at its own price.' }));
+    expect(late.status, JSON.stringify(late.body)).toBe(200);
+
+    // PUT offers again: withdrawnAt back to null, the student sees it, a request goes through (then cancelled)
+    const put = await coach.json('/api/review-offer', json('PUT', { priceCents: 4500, currency: 'EUR', turnaroundDays: 3 }));
+    expect(put.status).toBe(200);
+    expect((put.body as { offer: OfferBody }).offer.withdrawnAt).toBeNull();
+    expect((await coach.json('/api/review-offer')).body).toMatchObject({ offers: [{ withdrawnAt: null }] });
+    expect((await student.json('/api/review-offer')).body).toMatchObject({ offers: [{ coachName: 'Maren Solberg', priceCents: 4500, withdrawnAt: null }] });
+    const { id } = await request('Asking again now that the offer is back.');
+    expect((await student.json(`/api/reviews/${id}/cancel`, { method: 'POST' })).status).toBe(200);
   });
 });

@@ -91,4 +91,18 @@ describe('paid remote review in the browser', () => {
     expect(await page.getByTestId('coaching-caution').count()).toBe(1);
     await shoot('coach-review');
   }, 120_000);
+
+  it('the coach stops taking requests (asked first), sees the form say so, and undoes it', async () => {
+    await page.context().clearCookies();
+    await signInAt(page, baseUrl, DEMO.coach, DEMO_PASSWORD, '/reviews');
+    const form = page.getByTestId('offer-form');
+    await form.waitFor();
+    await page.getByRole('button', { name: 'Stop taking requests…' }).click();
+    await page.getByRole('alertdialog').getByRole('button', { name: 'Stop taking requests' }).click();
+    await form.getByRole('button', { name: 'Offer again' }).waitFor({ timeout: 15_000 });
+    expect(await axeViolations(page)).toEqual([]);
+    await shoot('coach-offer-withdrawn');
+    await page.getByTestId('undo-line').getByRole('button', { name: 'Undo' }).click();
+    await form.getByRole('button', { name: 'Save offer' }).waitFor({ timeout: 15_000 });
+  }, 60_000);
 });

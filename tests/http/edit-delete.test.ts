@@ -8,6 +8,7 @@ import { sweepBin } from '@/lib/sessions/bin';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb, serverStore } from './support/recordings-http';
+import { roleRequests } from './support/role-matrix';
 
 // Edit and delete of what a coach fills in, against the running app: archive and restore a player, the bin of
 // drills, bands and drill assignments (delete -> hidden everywhere -> restore within 30 days, 409 after, the sweep),
@@ -24,19 +25,7 @@ let db: Knex;
 /** a drill binned 31 days ago: the sweep at the end removes it */
 let oldDrillId = 0;
 
-const send = (actor: Actor, method: string, path: string, body?: unknown) =>
-  sessions.get(actor)!.json(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
-
-async function matrix(method: string, path: string, body: unknown, expected: Record<Actor, number>) {
-  const got = {} as Record<Actor, number>;
-  // the owner last, so that a DELETE it makes does not turn the others' answers into 404
-  for (const actor of [...actors.filter((a) => a !== 'coach'), 'coach' as const]) {
-    const res = await send(actor, method, path, body);
-    got[actor] = res.status;
-    if (res.status >= 400) expect(res.contentType).toContain('application/json');
-  }
-  expect(got).toEqual(expected);
-}
+const { send, matrix } = roleRequests(sessions, actors, 'coach');
 
 const binnedDaysAgo = (table: string, id: number, days: number) => db(table).where({ id }).update({ binned_at: db.raw(`NOW(3) - INTERVAL ${days} DAY`) });
 

@@ -6,6 +6,7 @@ import { sweepBin } from '@/lib/sessions/bin';
 import { DEMO, DEMO_PASSWORD, e2eEnv } from './support/env';
 import { HttpSession, signedIn } from './support/http-session';
 import { serverDb, serverStore } from './support/recordings-http';
+import { roleRequests } from './support/role-matrix';
 
 // What a coach sent a student, after sending: the note edited (PATCH /api/shares/:id), the share removed to the bin
 // (DELETE) and brought back (POST .../restore) or swept after 30 days, and the coach's list per player
@@ -20,19 +21,7 @@ const sessions = new Map<Actor, HttpSession>();
 let db: Knex;
 const made: number[] = [];
 
-const send = (actor: Actor, method: string, path: string, body?: unknown) =>
-  sessions.get(actor)!.json(path, { method, headers: body === undefined ? {} : { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
-
-async function matrix(method: string, path: string, body: unknown, expected: Record<Actor, number>) {
-  const got = {} as Record<Actor, number>;
-  // the owner last, so that a DELETE it makes does not turn the others' answers into 404
-  for (const actor of [...actors.filter((a) => a !== 'coach'), 'coach' as const]) {
-    const res = await send(actor, method, path, body);
-    got[actor] = res.status;
-    if (res.status >= 400) expect(res.contentType).toContain('application/json');
-  }
-  expect(got).toEqual(expected);
-}
+const { send, matrix } = roleRequests(sessions, actors, 'coach');
 
 async function share(note: string): Promise<number> {
   const res = await send('coach', 'POST', '/api/shares', { sessionId: 1, note });

@@ -13,7 +13,7 @@ import { signedIn, type HttpSession } from '../http/support/http-session';
 import { serverDb, settled, upload } from '../http/support/recordings-http';
 import { A11Y_CHECKS, type A11yFixture, type A11yRole } from './support/a11y-pages';
 import { axeViolations, describeViolations } from './support/axe';
-import { launchBrowser, screenshotFailure, screenshotPath, type Browser } from './support/browser';
+import { launchBrowser, lookScreenshot, screenshotFailure, screenshotPath, type Browser } from './support/browser';
 
 // WCAG 2.0/2.1 level A and AA (axe-core's wcag2a, wcag2aa, wcag21a, wcag21aa rules) on every page of every role
 // and on the states reached by acting, from the one list in tests/e2e/support/a11y-pages.ts, at 1280x800 and again
@@ -171,13 +171,13 @@ describe('accessibility: WCAG 2 A/AA with axe-core, zero violations', () => {
       if (violations.length) writeFileSync(screenshotPath(slug).replace(/\.png$/, '.json'), JSON.stringify(violations, null, 2));
       expect(violations, describeViolations(violations)).toEqual([]);
       // for a look at the colours and layout at the two common laptop sizes (artifacts/, not compared)
-      await page.screenshot({ path: screenshotPath(`${slug}-1280x800`), fullPage: true });
+      await lookScreenshot(page, screenshotPath(`${slug}-1280x800`));
       // the narrower window again, where tables may start to scroll and charts redraw narrower
       await page.setViewportSize({ width: 1024, height: 768 });
       await page.waitForLoadState('networkidle');
       const narrow = await axeViolations(page);
       if (narrow.length) writeFileSync(screenshotPath(`${slug}-1024x768`).replace(/\.png$/, '.json'), JSON.stringify(narrow, null, 2));
-      await page.screenshot({ path: screenshotPath(`${slug}-1024x768`), fullPage: true });
+      await lookScreenshot(page, screenshotPath(`${slug}-1024x768`));
       await page.setViewportSize({ width: 1280, height: 800 });
       expect(narrow, `at 1024x768:\n${describeViolations(narrow)}`).toEqual([]);
     });

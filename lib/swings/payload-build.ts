@@ -8,7 +8,7 @@
 // (lib/swings/payload.ts). Free of the app's DB client and of server-only (every function takes the connection),
 // because the processing worker also runs outside Next (demo seed, scripts, tests).
 import type { Knex } from 'knex';
-import { ANALYSIS_FALLBACKS, EVENT_NAMES, REJECT_REASONS, type RejectReason } from '@/lib/signal';
+import { ANALYSIS_FALLBACKS, REJECT_REASONS, type RejectReason } from '@/lib/signal';
 import { resolveLayout, recordingOptionsSchema } from '@/lib/recordings/options';
 import type { RecordingOverview, SwingView } from '@/lib/contracts/swings';
 import { jsonColumn } from '@/lib/db/values';
@@ -92,14 +92,8 @@ async function currentEventsPhases(conn: Knex, swingIds: number[]): Promise<Map<
   return new Map(swingIds.map((id) => [id, eventsPhasesView(e.get(id) as EventRow[], v.get(id) as ValueRow[], p.get(id) as PhaseRow[])]));
 }
 
-async function currentEvents(conn: Knex, swingIds: number[]): Promise<Map<number, EventTimes>> {
-  const rows = swingIds.length ? await conn('swing_events').whereIn('swing_id', swingIds).select('swing_id', 'name', 'time_s') : [];
-  const out = new Map<number, EventTimes>();
-  for (const id of swingIds) out.set(id, []);
-  for (const r of rows) out.get(Number(r.swing_id))!.push({ name: r.name, timeS: r3(r.time_s) });
-  for (const list of out.values()) list.sort((a, b) => EVENT_NAMES.indexOf(a.name) - EVENT_NAMES.indexOf(b.name));
-  return out;
-}
+/** The event times the sensor frames are taken at, from the swing's formatted events (eventsPhasesView). */
+const eventTimesOf = (detail: ReturnType<typeof eventsPhasesView>): EventTimes => detail.events.map((e) => ({ name: e.name, timeS: e.timeS }));
 
 /**
  * The swing's own parts as JSON text: the columnar traces and the sensor forces at the current events. Every part of
@@ -134,10 +128,10 @@ export async function storeRecordingPayloads(
   await storeRecordingPart(conn, recordingId);
   const swingIds = (await conn('swings').where({ recording_id: recordingId }).select('id')).map((r) => Number(r.id));
   if (swingIds.length === 0) return;
-  const [events, detail] = await Promise.all([currentEvents(conn, swingIds.filter((id) => !prepared?.has(id))), currentEventsPhases(conn, swingIds)]);
+  const detail = await currentEventsPhases(conn, swingIds);
   const rows = [];
   for (const id of swingIds) {
-    const parts = prepared?.get(id) ?? swingPartTexts(await storedSeriesOf(conn, id), events.get(id)!);
+    const parts = prepared?.get(id) ?? swingPartTexts(await storedSeriesOf(conn, id), eventTimesOf(detail.get(id)!));
     rows.push({ swing_id: id, body: swingPartText(parts.seriesJson, parts.framesJson, detail.get(id)!), format: SWING_PART_FORMAT });
   }
   await conn('swing_payloads').whereIn('swing_id', swingIds).delete();
@@ -150,8 +144,8 @@ export async function storeRecordingPayloads(
  * transaction (lib/swings/corrections.ts, lib/jobs/write-results.ts): the view reads them from here.
  */
 export async function storeSwingPayload(conn: Knex, swingId: number): Promise<string> {
-  const [events, detail, stored] = await Promise.all([currentEvents(conn, [swingId]), currentEventsPhases(conn, [swingId]), storedSeriesOf(conn, swingId)]);
-  const parts = swingPartTexts(stored, events.get(swingId)!);
+  const [detail, stored] = await Promise.all([currentEventsPhases(conn, [swingId]), storedSeriesOf(conn, swingId)]);
+  const parts = swingPartTexts(stored, eventTimesOf(detail.get(swingId)!));
   const body = swingPartText(parts.seriesJson, parts.framesJson, detail.get(swingId)!);
   await conn.raw(
     'INSERT INTO swing_payloads (swing_id, body, format) VALUES (?, ?, ?) ON DUPLICATE KEY UPDATE body = VALUES(body), format = VALUES(format), built_at = CURRENT_TIMESTAMP(3)',
